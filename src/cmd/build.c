@@ -1,0 +1,11 @@
+/* build.c — `cairn build`.  Not built yet: fails loudly until its module lands. */
+#include "config.h"
+
+#include "cmd/cmd.h"
+
+#include <stdio.h>
+
+int cmd_build(const cmd_env *env, int argc, char **argv) {
+  fprintf(stderr, "cairn build: this command is not built yet\n");
+  return 2;
+}

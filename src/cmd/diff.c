@@ -1,0 +1,11 @@
+/* diff.c — `cairn diff`.  Not built yet: fails loudly until its module lands. */
+#include "config.h"
+
+#include "cmd/cmd.h"
+
+#include <stdio.h>
+
+int cmd_diff(const cmd_env *env, int argc, char **argv) {
+  fprintf(stderr, "cairn diff: this command is not built yet\n");
+  return 2;
+}

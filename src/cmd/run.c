@@ -1,0 +1,11 @@
+/* run.c — `cairn run`.  Not built yet: fails loudly until its module lands. */
+#include "config.h"
+
+#include "cmd/cmd.h"
+
+#include <stdio.h>
+
+int cmd_run(const cmd_env *env, int argc, char **argv) {
+  fprintf(stderr, "cairn run: this command is not built yet\n");
+  return 2;
+}

@@ -1,0 +1,11 @@
+/* show.c — `cairn show`.  Not built yet: fails loudly until its module lands. */
+#include "config.h"
+
+#include "cmd/cmd.h"
+
+#include <stdio.h>
+
+int cmd_show(const cmd_env *env, int argc, char **argv) {
+  fprintf(stderr, "cairn show: this command is not built yet\n");
+  return 2;
+}

@@ -1,0 +1,155 @@
+/* main.c — the cairn command line: global options, then one command. */
+#include "config.h"
+
+#include "cmd/cmd.h"
+
+#include <stdarg.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+typedef struct command {
+  const char *name;
+  cmd_fn fn;
+  const char *summary;
+  const char *usage;
+} command;
+
+/* ORDER COMMANDS: the order `cairn --help` lists them in. */
+static const command commands[] = {
+    {"check", cmd_check, "parse, resolve and type-check recipes; print diagnostics",
+     "cairn check [--werror] FILE...\n"
+     "  Parse each recipe, resolve names and units, and check that the generators\n"
+     "  respect the symmetries the recipe keeps.  Prints diagnostics only.\n"},
+    {"fmt", cmd_fmt, "rewrite recipes in canonical layout",
+     "cairn fmt [--check] FILE...\n"
+     "  Rewrite each recipe in canonical layout (comments kept).  With --check,\n"
+     "  print the names of files that are not formatted and exit 1; change nothing.\n"},
+    {"diff", cmd_diff, "semantic difference of two recipes",
+     "cairn diff [--json] A B\n"
+     "  Say what differs in meaning between recipes A and B.  Exit 0 when they mean\n"
+     "  the same (even if written differently), 1 when they differ.\n"},
+    {"show", cmd_show, "the generator table or the qubit Hamiltonian",
+     "cairn show [--json] [--hamiltonian] FILE\n"
+     "  Print the ranked generator table of the recipe, or with --hamiltonian the\n"
+     "  qubit Hamiltonian after encoding and tapering.\n"},
+    {"run", cmd_run, "simulated optimization run (statevector)",
+     "cairn run [--json OUT] FILE\n"
+     "  Optimize the recipe's ansatz on a noise-free statevector and compare it with\n"
+     "  the exact and classical reference energies of the active space.\n"},
+    {"build", cmd_build, "lower the ansatz to gates",
+     "cairn build [-o OUT] [--format listing|qasm2|qasm3] FILE\n"
+     "  Lower the recipe's ansatz to a gate circuit; print gate counts.\n"},
+    {"integrals", cmd_integrals, "write the active-space Hamiltonian as FCIDUMP",
+     "cairn integrals -o OUT.fcidump FILE\n"
+     "  Compute the active-space integrals of the recipe's molecule and write them\n"
+     "  in the FCIDUMP format.\n"},
+};
+enum { NCOMMANDS = (int)(sizeof commands / sizeof commands[0]) };
+
+static const command *find(const char *name) {
+  for (int i = 0; i < NCOMMANDS; i++)
+    if (strcmp(commands[i].name, name) == 0) return &commands[i];
+  return NULL;
+}
+
+const char *cmd_usage(const char *name) {
+  const command *c = find(name);
+  return c ? c->usage : NULL;
+}
+
+int cmd_usage_error(const char *name, const char *fmt, ...) {
+  va_list ap;
+  fprintf(stderr, "cairn %s: ", name);
+  va_start(ap, fmt);
+  vfprintf(stderr, fmt, ap);
+  va_end(ap);
+  fputc('\n', stderr);
+  const char *u = cmd_usage(name);
+  if (u) fprintf(stderr, "usage: %.*s\n", (int)strcspn(u, "\n"), u);
+  return 2;
+}
+
+static void print_help(FILE *f) {
+  fprintf(f,
+          "cairn %s — a compiler for VQE ansatz recipes\n\n"
+          "usage: cairn [--color=auto|always|never] [--werror] COMMAND [ARGS]\n\n"
+          "commands:\n",
+          PACKAGE_VERSION);
+  for (int i = 0; i < NCOMMANDS; i++) fprintf(f, "  %-10s %s\n", commands[i].name, commands[i].summary);
+  fprintf(f,
+          "  %-10s %s\n\n"
+          "Simulations are noise-free statevector computations; energies are exact only\n"
+          "within the recipe's basis set and active space.\n",
+          "help", "help on a command (cairn help COMMAND)");
+}
+
+static int cmd_help(int argc, char **argv) {
+  if (argc < 2) {
+    print_help(stdout);
+    return 0;
+  }
+  const command *c = find(argv[1]);
+  if (c) {
+    fputs(c->usage, stdout);
+    return 0;
+  }
+  fprintf(stderr, "cairn help: no help on `%s`; try `cairn --help`\n", argv[1]);
+  return 2;
+}
+
+/* Pull the global options out of argv wherever they stand; returns the new argc. */
+static int take_globals(int argc, char **argv, cmd_env *env, int *bad) {
+  int out = 0;
+  for (int i = 0; i < argc; i++) {
+    const char *a = argv[i];
+    if (strncmp(a, "--color=", 8) == 0) {
+      const char *w = a + 8;
+      if (strcmp(w, "auto") == 0) env->color = DIAG_COLOR_AUTO;
+      else if (strcmp(w, "always") == 0) env->color = DIAG_COLOR_ALWAYS;
+      else if (strcmp(w, "never") == 0) env->color = DIAG_COLOR_NEVER;
+      else {
+        fprintf(stderr, "cairn: --color takes auto, always or never, not `%s`\n", w);
+        *bad = 1;
+      }
+    } else if (strcmp(a, "--werror") == 0) {
+      env->werror = 1;
+    } else {
+      argv[out++] = argv[i];
+    }
+  }
+  argv[out] = NULL;
+  return out;
+}
+
+int main(int argc, char **argv) {
+  cmd_env env = {DIAG_COLOR_AUTO, 0};
+  int bad = 0;
+  argc = take_globals(argc - 1, argv + 1, &env, &bad);
+  argv = argv + 1;
+  if (bad) return 2;
+  if (argc < 1) {
+    print_help(stderr);
+    return 2;
+  }
+  if (strcmp(argv[0], "--help") == 0 || strcmp(argv[0], "-h") == 0) {
+    print_help(stdout);
+    return 0;
+  }
+  if (strcmp(argv[0], "--version") == 0) {
+    printf("cairn %s\n", PACKAGE_VERSION);
+    return 0;
+  }
+  if (strcmp(argv[0], "help") == 0) return cmd_help(argc, argv);
+  const command *c = find(argv[0]);
+  if (!c) {
+    fprintf(stderr, "cairn: unknown command `%s`; try `cairn --help`\n", argv[0]);
+    return 2;
+  }
+  for (int i = 1; i < argc; i++)
+    if (strcmp(argv[i], "--help") == 0 || strcmp(argv[i], "-h") == 0) {
+      fputs(c->usage, stdout);
+      return 0;
+    }
+  return c->fn(&env, argc, argv);
+}

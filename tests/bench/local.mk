@@ -1,0 +1,1 @@
+## benchmarks (make bench); each module appends its target to BENCH_TARGETS

@@ -1,0 +1,6 @@
+## tests shared by several modules
+check_PROGRAMS += tests/unit/test_util
+UNIT_TESTS += tests/unit/test_util
+tests_unit_test_util_SOURCES = tests/unit/test_util.c
+tests_unit_test_util_CFLAGS = $(UNIT_CFLAGS)
+tests_unit_test_util_LDADD = $(UNIT_LDADD)

@@ -1,0 +1,161 @@
+/* test_pauli.c — Pauli word algebra and sums. */
+#include "config.h"
+
+#include <setjmp.h>
+#include <stdarg.h>
+#include <stddef.h>
+#include <stdint.h>
+#include <stdlib.h>
+#include <string.h>
+#include <cmocka.h>
+
+#include "cairn/pauli.h"
+
+static void word1(char L, uint64_t *x, uint64_t *z) {
+  x[0] = z[0] = 0;
+  if (L != 'I') pauli_set_letter(x, z, 0, L);
+}
+
+/* The single-qubit multiplication table (XY = iZ, YZ = iX, ZX = iY, squares are
+ * the identity): the Pauli matrices' defining relations, common practice. */
+static void test_single_qubit_table(void **state) {
+  (void)state;
+  const char *L = "IXYZ";
+  /* expected[a][b] = letter and power of i of sigma_a sigma_b */
+  const char prod[4][4] = {{'I', 'X', 'Y', 'Z'}, {'X', 'I', 'Z', 'Y'}, {'Y', 'Z', 'I', 'X'}, {'Z', 'Y', 'X', 'I'}};
+  const int phase[4][4] = {{0, 0, 0, 0}, {0, 0, 1, 3}, {0, 3, 0, 1}, {0, 1, 3, 0}};
+  for (int a = 0; a < 4; a++)
+    for (int b = 0; b < 4; b++) {
+      uint64_t x1, z1, x2, z2, x3, z3;
+      word1(L[a], &x1, &z1);
+      word1(L[b], &x2, &z2);
+      int k = pauli_word_mul(1, &x1, &z1, &x2, &z2, &x3, &z3);
+      assert_int_equal(pauli_letter(&x3, &z3, 0), prod[a][b]);
+      assert_int_equal(k, phase[a][b]);
+      int commute = a == 0 || b == 0 || a == b;
+      assert_int_equal(pauli_word_commutes(1, &x1, &z1, &x2, &z2), commute);
+    }
+}
+
+/* Words on n qubits: 4^n - 1 non-identity words (fact of the trade), all
+ * distinct under the canonical order, and each squares to the identity. */
+static void test_enumerate_words(void **state) {
+  (void)state;
+  for (int n = 1; n <= 5; n++) {
+    pauli_sum s;
+    pauli_sum_init(&s, n);
+    long total = 1L << (2 * n);
+    for (long code = 0; code < total; code++) {
+      uint64_t x = 0, z = 0;
+      for (int q = 0; q < n; q++) pauli_set_letter(&x, &z, q, "IXYZ"[(code >> (2 * q)) & 3]);
+      uint64_t x3, z3;
+      assert_int_equal(pauli_word_mul(1, &x, &z, &x, &z, &x3, &z3), 0);
+      assert_true(pauli_word_is_identity(1, &x3, &z3));
+      if (code) pauli_sum_add(&s, &x, &z, 1.0);
+    }
+    pauli_sum_canonicalize(&s, 0.0);
+    assert_int_equal((long)s.len, total - 1);
+    for (size_t i = 1; i < s.len; i++)
+      assert_true(pauli_word_cmp(s.nw, pauli_sum_x(&s, i - 1), pauli_sum_z(&s, i - 1), pauli_sum_x(&s, i),
+                                 pauli_sum_z(&s, i)) < 0);
+    pauli_sum_free(&s);
+  }
+}
+
+/* Two words anticommute exactly when they differ (both non-I) on an odd
+ * number of qubits; checked across a 64-bit word boundary. */
+static void test_wide_words(void **state) {
+  (void)state;
+  int n = 130, nw = pauli_nwords(n);
+  assert_int_equal(nw, 3);
+  uint64_t x1[3], z1[3], x2[3], z2[3], x3[3], z3[3];
+  char err[128];
+  assert_int_equal(pauli_word_parse("X0 Y63 Z64 X129", n, x1, z1, err, sizeof err, NULL), 0);
+  assert_int_equal(pauli_word_parse("Z0 Y63 X64", n, x2, z2, err, sizeof err, NULL), 0);
+  /* differs on qubits 0 and 64: two anticommuting letters -> commute */
+  assert_true(pauli_word_commutes(nw, x1, z1, x2, z2));
+  int k = pauli_word_mul(nw, x1, z1, x2, z2, x3, z3);
+  /* X0 Z0 = -i Y0; Y63 Y63 = I; Z64 X64 = i Y64; X129 */
+  char *s = pauli_word_str(n, x3, z3);
+  assert_string_equal(s, "Y0 Y64 X129");
+  free(s);
+  assert_int_equal(k, 0); /* (-i)(i) = 1 */
+  assert_int_equal(pauli_word_weight(nw, x1, z1), 4);
+  assert_int_equal(pauli_word_ycount(nw, x1, z1), 1);
+}
+
+static void test_parse_errors(void **state) {
+  (void)state;
+  uint64_t x[1], z[1];
+  char err[128];
+  size_t off = 99;
+  assert_int_equal(pauli_word_parse("X0 Q1", 4, x, z, err, sizeof err, &off), -1);
+  assert_int_equal(off, 3);
+  assert_int_equal(pauli_word_parse("X0 Y0", 4, x, z, err, sizeof err, &off), -1);
+  assert_string_equal(err, "qubit 0 appears twice");
+  assert_int_equal(pauli_word_parse("X7", 4, x, z, err, sizeof err, &off), -1);
+  assert_string_equal(err, "qubit 7 is beyond the register (qubits 0..3)");
+  assert_int_equal(pauli_word_parse("XYZI", 4, x, z, err, sizeof err, &off), 0);
+  char *d = pauli_word_dense(4, x, z);
+  assert_string_equal(d, "XYZI");
+  free(d);
+  assert_int_equal(pauli_word_parse("XYZIZ", 4, x, z, err, sizeof err, &off), -1);
+  assert_int_equal(pauli_word_parse("", 4, x, z, err, sizeof err, &off), -1);
+}
+
+/* [X0, Y0] = 2i Z0; [X0 X1, Z0 Z1] = 0; the accumulator merges like sort does. */
+static void test_sums(void **state) {
+  (void)state;
+  pauli_sum a, b, c;
+  pauli_sum_init(&a, 2);
+  pauli_sum_init(&b, 2);
+  pauli_sum_init(&c, 2);
+  pauli_sum_add_text(&a, "X0", 1.0);
+  pauli_sum_add_text(&b, "Y0", 1.0);
+  pauli_sum_commutator(&c, &a, &b);
+  assert_int_equal(c.len, 1);
+  char *s = pauli_word_str(2, pauli_sum_x(&c, 0), pauli_sum_z(&c, 0));
+  assert_string_equal(s, "Z0");
+  free(s);
+  assert_true(cabs(c.c[0] - 2.0 * I) < 1e-15);
+
+  pauli_sum_clear(&a);
+  pauli_sum_clear(&b);
+  pauli_sum_add_text(&a, "X0 X1", 1.0);
+  pauli_sum_add_text(&b, "Z0 Z1", 1.0);
+  pauli_sum_commutator(&c, &a, &b);
+  assert_int_equal(c.len, 0);
+
+  /* (X0 + Z1)^2 = 2 I + 2 X0 Z1 */
+  pauli_sum_clear(&a);
+  pauli_sum_add_text(&a, "X0", 1.0);
+  pauli_sum_add_text(&a, "Z1", 1.0);
+  pauli_sum_mul(&c, &a, &a);
+  assert_int_equal(c.len, 2);
+  assert_true(pauli_word_is_identity(c.nw, pauli_sum_x(&c, 0), pauli_sum_z(&c, 0)));
+  assert_true(cabs(c.c[0] - 2.0) < 1e-15 && cabs(c.c[1] - 2.0) < 1e-15);
+
+  pauli_acc *acc = pauli_acc_new(2, 1);
+  for (int i = 0; i < 1000; i++) {
+    uint64_t x = (uint64_t)(i % 4), zz = (uint64_t)((i / 4) % 4);
+    pauli_acc_add(acc, &x, &zz, 1.0);
+  }
+  assert_int_equal(pauli_acc_len(acc), 16);
+  pauli_acc_finish(acc, &c, 0.0);
+  assert_int_equal(c.len, 16);
+  double total = 0;
+  for (size_t i = 0; i < c.len; i++) total += creal(c.c[i]);
+  assert_true(total == 1000.0);
+  pauli_sum_free(&a);
+  pauli_sum_free(&b);
+  pauli_sum_free(&c);
+}
+
+int main(void) {
+  const struct CMUnitTest tests[] = {
+      cmocka_unit_test(test_single_qubit_table), cmocka_unit_test(test_enumerate_words),
+      cmocka_unit_test(test_wide_words),         cmocka_unit_test(test_parse_errors),
+      cmocka_unit_test(test_sums),
+  };
+  return cmocka_run_group_tests(tests, NULL, NULL);
+}
