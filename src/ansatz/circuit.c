@@ -21,6 +21,8 @@ void ans_circuit_free(ans_circuit *c) {
   free(c->rot);
   free(c->param_gen);
   free(c->slot);
+  for (int g = 0; g < c->ngens; g++) free(c->gens[g].text);
+  free(c->gens);
   memset(c, 0, sizeof *c);
 }
 
@@ -55,4 +57,25 @@ int32_t ans_circuit_word(ans_circuit *c, const uint64_t *x, const uint64_t *z) {
 void ans_circuit_push(ans_circuit *c, int32_t word, int32_t param, double mult, int32_t gen) {
   UTIL_GROW(c->rot, c->caprot, c->nrot + 1);
   c->rot[c->nrot++] = (ans_rotation){word, param, mult, gen};
+}
+
+int ans_circuit_add_gen(ans_circuit *c, const ans_gen_info *info) {
+  c->gens = xrealloc(c->gens, (size_t)(c->ngens + 1) * sizeof *c->gens);
+  c->gens[c->ngens] = *info;
+  c->gens[c->ngens].text = xstrdup(info->text ? info->text : "");
+  return c->ngens++;
+}
+
+int ans_circuit_add_param(ans_circuit *c, int gen) {
+  c->param_gen = xrealloc(c->param_gen, (size_t)(c->nparams + 1) * sizeof *c->param_gen);
+  c->param_gen[c->nparams] = gen;
+  if (gen < 0) c->nref_params++;
+  return c->nparams++;
+}
+
+/* ORDER ans_kind */
+const char *ans_kind_name(ans_kind k) {
+  static const char *const names[] = {"single",    "double", "qubit-single", "qubit-double",
+                                      "entangler", "word",   "excite"};
+  return (unsigned)k < sizeof names / sizeof names[0] ? names[k] : "?";
 }
