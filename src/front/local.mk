@@ -1,0 +1,1 @@
+## recipe language front end: scanner, parser, AST, resolve, fmt, diff

@@ -1,0 +1,1 @@
+## gate lowering, passes, emitters

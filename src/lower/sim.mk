@@ -1,0 +1,1 @@
+## statevector engine, adjoint gradients, optimizers

@@ -1,0 +1,1 @@
+## reports: text, JSON, CSV, SVG; help topics
