@@ -64,7 +64,7 @@ typedef struct qubit_taper {
 /* Find the symmetries of H, the sector of the reference basis state `ref`
  * (encoded bits).  Fills t (nsym may be 0). */
 void qubit_taper_find(const pauli_sum *H, const uint64_t *ref, const qubit_encoder *enc, qubit_taper *t);
-void qubit_taper_free(qubit_taper *t);
+void qubit_taper_free(qubit_taper *t); /* safe on a zeroed struct */
 /* Apply the tapering to a Pauli sum: out lives on nqubits - nsym qubits.
  * Returns 0, or -1 when `in` does not commute with every tau_i (out is then
  * left empty). */
