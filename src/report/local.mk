@@ -1,7 +1,7 @@
 ## reports: text, JSON, CSV, SVG; help topics
 libcairn_a_SOURCES += src/report/run.c src/report/text.c src/report/json.c src/report/json_read.c src/report/csv.c \
-	src/report/plot.c src/report/figure.c src/report/plot.h src/report/report_int.h \
-	include/cairn/report.h
+	src/report/plot.c src/report/figure.c src/report/help.c src/report/plot.h src/report/report_int.h \
+	include/cairn/report.h include/cairn/help.h
 
 ## the driver that writes every output of a JSON report (used by the checks)
 check_PROGRAMS += tests/unit/test_report_files
