@@ -46,8 +46,9 @@ static cJSON *point(const rep_run *r, const rep_point *p, unsigned flags) {
   cJSON_AddNumberToObject(o, "electrons", p->electrons);
   cJSON_AddNumberToObject(o, "orbitals", p->orbitals);
   cJSON_AddItemToObject(o, "energies", energies(p));
-  double err;
-  num(o, "error", rep_point_error(p, REP_S_ANSATZ, &err), err);
+  double err = 0;
+  int has_err = rep_point_error(p, REP_S_ANSATZ, &err);
+  num(o, "error", has_err, err);
   num(o, "exact_spin_squared", p->e.has_exact, p->exact_s2);
   cJSON *gens = cJSON_AddArrayToObject(o, "generators");
   for (int g = 0; g < p->ngens; g++) {

@@ -7,3 +7,9 @@ libcairn_a_SOURCES += src/report/run.c src/report/text.c src/report/json.c src/r
 check_PROGRAMS += tests/unit/test_report_files
 tests_unit_test_report_files_SOURCES = tests/unit/test_report_files.c
 tests_unit_test_report_files_LDADD = $(CAIRN_LIBS)
+
+check_PROGRAMS += tests/unit/test_report
+UNIT_TESTS += tests/unit/test_report
+tests_unit_test_report_SOURCES = tests/unit/test_report.c
+tests_unit_test_report_CFLAGS = $(UNIT_CFLAGS)
+tests_unit_test_report_LDADD = $(UNIT_LDADD)
