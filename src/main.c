@@ -95,6 +95,11 @@ static int cmd_help(int argc, char **argv) {
   const command *c = find(argv[1]);
   if (c) {
     fputs(c->usage, stdout);
+    /* a command that is also a word of the language (`integrals`) */
+    if (help_find(argv[1]) > 0) {
+      printf("\nIn recipes:\n\n");
+      help_topic(argv[1], stdout);
+    }
     return 0;
   }
   if (help_topic(argv[1], stdout) > 0) return 0;

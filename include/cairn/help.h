@@ -29,6 +29,8 @@ const help_entry *help_get(int i); /* 0 <= i < help_count() */
 /* Print every topic named `word` or explaining it.  Returns the number of
  * topics printed (0: none; nothing is printed then). */
 int help_topic(const char *word, FILE *out);
+/* How many topics help_topic would print for `word` (prints nothing). */
+int help_find(const char *word);
 /* The list of topics with their summaries (for `cairn help`). */
 void help_list(FILE *out);
 

@@ -449,6 +449,12 @@ int help_topic(const char *word, FILE *out) {
   return n;
 }
 
+int help_find(const char *word) {
+  int n = 0;
+  for (int i = 0; i < NTOPICS; i++) n += strcmp(topics[i].name, word) == 0 || has_word(topics[i].keywords, word);
+  return n;
+}
+
 void help_list(FILE *out) {
   for (int i = 0; i < NTOPICS; i++) fprintf(out, "  %-13s %s\n", topics[i].name, topics[i].summary);
 }

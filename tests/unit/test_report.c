@@ -476,6 +476,7 @@ static void test_convergence(void **state) {
   p->ntrace = 30;
   p->trace = xcalloc(30, sizeof(double));
   for (int k = 0; k < 30; k++) p->trace[k] = p->e.exact + 0.05 * pow(0.6, k);
+  rmdir(dir);
   free(path);
   free(dir);
   char *s = figure(&r, 1);
@@ -554,7 +555,10 @@ static void test_help_topics(void **state) {
   FILE *f = fopen("/dev/null", "w");
   assert_int_equal(help_topic("electrons", f), 1); /* a keyword finds its topic */
   assert_int_equal(help_topic("gradient", f), 2);  /* choose and order */
+  assert_int_equal(help_find("gradient"), 2);
+  assert_int_equal(help_find("integrals"), 1);
   assert_int_equal(help_topic("no-such-word", f), 0);
+  assert_int_equal(help_find("no-such-word"), 0);
   assert_int_equal(help_topic("", f), 0);
   fclose(f);
 }
