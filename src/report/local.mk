@@ -20,7 +20,7 @@ TESTS += tests/ref/report_figures.py tests/ref/report_golden.sh tests/ref/report
 EXTRA_DIST += tests/ref/report_figures.py tests/ref/report_golden.sh tests/ref/report_help.py \
 	tests/ref/report_man.sh tests/ref/report_editors.py tests/ref/report_pngcheck.py \
 	tests/ref/report_keywords.py \
-	tests/golden/report/make_inputs.py tests/golden/report/scan-in.json tests/golden/report/single-in.json \
+	tests/golden/report/README.md tests/golden/report/make_inputs.py tests/golden/report/scan-in.json tests/golden/report/single-in.json \
 	tests/golden/report/scan.txt tests/golden/report/scan-points.txt tests/golden/report/scan.json \
 	tests/golden/report/scan.csv tests/golden/report/scan.svg \
 	tests/golden/report/single.txt tests/golden/report/single-points.txt tests/golden/report/single.json \
