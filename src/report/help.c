@@ -30,8 +30,9 @@ static const help_entry topics[] = {
     {"cairn", "cairn", "the language version line that opens a recipe",
      "  cairn VERSION\n"
      "\n"
-     "  The first statement of every recipe names the version of the recipe\n"
-     "  language it is written in.  This cairn reads version 1.\n",
+     "  The first line of every recipe names the version of the recipe language\n"
+     "  it is written in.  This cairn reads version 1.  In a file read by `use`\n"
+     "  the line is optional.\n",
      "cairn 1", "syntax use"},
 
     {"let", "let", "named numbers, with units",
@@ -82,9 +83,9 @@ static const help_entry topics[] = {
      "  }\n"
      "\n"
      "  Each line is an element symbol and three coordinates (expressions; names\n"
-     "  from `let` and `vary` may appear).  UNIT (angstrom or bohr) applies to\n"
-     "  the coordinates that carry no unit of their own.  `In` and `As` are\n"
-     "  element symbols here even though `in` and `as` are keywords elsewhere.\n"
+     "  from `let` and `vary` may appear).  UNIT (angstrom, the default, or bohr)\n"
+     "  applies to the coordinates that carry no unit of their own.  `In` and\n"
+     "  `As` are element symbols here, though `in` and `as` are keywords.\n"
      "  Instead of atoms and a basis set, a recipe may read `integrals` from an\n"
      "  FCIDUMP file.\n",
      "atoms angstrom {\n"
@@ -97,7 +98,8 @@ static const help_entry topics[] = {
     {"charge", "charge", "the total charge of the molecule",
      "  charge N\n"
      "\n"
-     "  The number of electrons is the sum of the atomic numbers minus N.\n",
+     "  The number of electrons is the sum of the atomic numbers minus N.\n"
+     "  Default 0.\n",
      "charge 1", "multiplicity atoms"},
 
     {"multiplicity", "multiplicity", "the spin state 2S+1",
@@ -106,7 +108,8 @@ static const help_entry topics[] = {
      "  M = 2S+1: 1 singlet, 2 doublet, 3 triplet.  It fixes how many electrons\n"
      "  have each spin (alpha electrons = beta electrons + M - 1), the target of\n"
      "  `keep spin-z` and of `keep spin-squared` (S(S+1)), and the state the\n"
-     "  exact reference energy is computed for.\n",
+     "  exact reference energy is computed for.  Default 1, or MS2+1 from an\n"
+     "  FCIDUMP file; an odd number of electrons needs `multiplicity 2` (or 4...).\n",
      "multiplicity 3", "charge keep"},
 
     {"basis", "basis file", "the Gaussian basis set",
@@ -137,10 +140,12 @@ static const help_entry topics[] = {
      "\n"
      "  Orbitals are numbered from 1 in order of energy, as in FCIDUMP files.\n"
      "  Frozen orbitals stay doubly occupied and fold into the constant energy;\n"
-     "  `freeze core` freezes the core shells of the atoms.  `active N electrons\n"
-     "  in M orbitals` takes the M orbitals around the Fermi level holding N\n"
-     "  electrons; `active orbitals` lists them.  Occupied orbitals left out of\n"
-     "  the active space are frozen too; virtual ones are dropped.  Without an\n"
+     "  `freeze core` freezes the core shells of each element, `freeze 1 2`\n"
+     "  names doubly occupied orbitals.  `active N electrons in M orbitals` keeps\n"
+     "  the lowest unfrozen orbitals doubly occupied until N electrons are left,\n"
+     "  then takes the next M orbitals; `active orbitals` lists them (occupied\n"
+     "  orbitals not listed are kept doubly occupied, so a singly occupied one\n"
+     "  must be listed).  Virtual orbitals left out are dropped.  Without an\n"
      "  `orbitals` block every orbital is active.  Each active orbital is two\n"
      "  qubits (before tapering).\n",
      "orbitals {\n"
@@ -156,7 +161,8 @@ static const help_entry topics[] = {
      "  (2002, in the construction of Seeley, Richard and Love 2012), or the\n"
      "  parity encoding.  Spin orbital 2p (orbital p, alpha) and 2p+1 (beta)\n"
      "  are qubits 2p and 2p+1.  `taper` then removes the qubits that Z2\n"
-     "  symmetries of the Hamiltonian fix (see `cairn help taper`).\n",
+     "  symmetries of the Hamiltonian fix (see `cairn help taper`).\n"
+     "  Default: jordan-wigner, no tapering.\n",
      "encoding parity taper", "taper indices keep"},
 
     {"taper", "taper", "remove qubits fixed by Z2 symmetries",
@@ -177,7 +183,8 @@ static const help_entry topics[] = {
      "  recipe's encoding.  mean-field: a product state of single-qubit\n"
      "  rotations whose angles are optimized with the ansatz (the qubit mean-field\n"
      "  reference of qubit coupled cluster).  bits: an explicit basis state, one\n"
-     "  character per qubit, the leftmost character is qubit 0.\n",
+     "  character per qubit, the leftmost character is qubit 0.\n"
+     "  Default: hartree-fock.\n",
      "reference bits 11110000", "encoding keep indices"},
 
     {"keep", "keep particles spin-z spin-squared exactly penalty checked",
@@ -193,8 +200,8 @@ static const help_entry topics[] = {
      "  checked TOL: `cairn run` measures <X> of the optimized state and reports\n"
      "  a failed check when it is further than TOL from the target.\n"
      "  Targets: the active electrons, Sz = (M-1)/2 and S(S+1) from the\n"
-     "  multiplicity M.  A symmetry without `keep` is neither enforced nor\n"
-     "  checked (the report still shows <N>, <Sz> and <S^2>).\n",
+     "  multiplicity M.  A symmetry without `keep` (the default) is neither\n"
+     "  enforced nor checked (the report still shows <N>, <Sz> and <S^2>).\n",
      "keep particles exactly\n"
      "keep spin-z exactly\n"
      "keep spin-squared checked 1e-6",
@@ -302,7 +309,8 @@ static const help_entry topics[] = {
      "  The energy gradient of a generator is dE/dtheta at theta = 0 on the\n"
      "  reference.  `N by gradient` keeps the N generators with the largest\n"
      "  |gradient|; `gradient above T` every generator with |gradient| > T\n"
-     "  (hartree); `all` the whole pool.  For adaptive growth see `grow`.\n",
+     "  (hartree); `all` the whole pool (the default).  For adaptive growth see\n"
+     "  `grow`.\n",
      "choose 8 by gradient", "grow order pool"},
 
     {"grow", "grow to until", "adaptive growth of the ansatz by gradient",
@@ -321,14 +329,16 @@ static const help_entry topics[] = {
      "  as written: the order of the pool.  by gradient: decreasing |gradient|.\n"
      "  by rank: by excitation rank (the number of qubits a generator moves),\n"
      "  then by decreasing |gradient|.  Ties keep the order of the pool.  The\n"
-     "  first generator in the order acts first on the reference.\n",
+     "  first generator in the order acts first on the reference.\n"
+     "  Default: as written.\n",
      "order by gradient", "choose pool trotter"},
 
     {"trotter", "trotter", "Trotter steps of the generator product",
      "  trotter N\n"
      "\n"
      "  Repeats the whole product of rotations N times with each angle divided\n"
-     "  by N (a first-order Trotter product).  N is a whole number >= 1.\n",
+     "  by N (a first-order Trotter product).  N is a whole number >= 1;\n"
+     "  default 1.\n",
      "trotter 2", "order"},
 
     {"optimize", "optimize lbfgs slsqp bobyqa cobyla nelder-mead tolerance iterations starts seed guess zeros mp2",
@@ -343,7 +353,9 @@ static const help_entry topics[] = {
      "  starts: how many starts; the first begins at `guess` (zeros: all angles\n"
      "  0; mp2: amplitudes from second-order perturbation theory), the others at\n"
      "  random angles drawn from `seed`, so runs repeat exactly.  The report\n"
-     "  gives the best start and the spread of the final energies.\n",
+     "  gives the best start and the spread of the final energies.\n"
+     "  Defaults: lbfgs tolerance 1e-8 iterations 500 starts 1 seed 7\n"
+     "  guess zeros.\n",
      "optimize lbfgs tolerance 1e-8 iterations 500 starts 8 seed 7", "report choose"},
 
     {"emit", "emit listing qasm2 qasm3", "where `cairn build` writes the gate list",
@@ -362,8 +374,9 @@ static const help_entry topics[] = {
      "\n"
      "  Reads the statements of another file as if they were written here.\n"
      "  PATH is relative to the directory of the file that uses it.  A file is\n"
-     "  read once, however often it is used; diagnostics point into the file\n"
-     "  where the text is.\n",
+     "  read once, however often it is used; a file that uses itself (directly\n"
+     "  or through others) is an error.  Diagnostics point into the file where\n"
+     "  the text is.  The `cairn 1` line is optional in a used file.\n",
      "use \"common/water-geometry.cairn\"", "syntax"},
 
     {"indices", "", "how orbitals, spin orbitals, qubits and bits are numbered",
