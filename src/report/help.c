@@ -100,7 +100,9 @@ static const help_entry topics[] = {
      "\n"
      "  The number of electrons is the sum of the atomic numbers minus N.\n"
      "  Default 0.\n",
-     "charge 1", "multiplicity atoms"},
+     "charge 1\n"
+     "multiplicity 2",
+     "multiplicity atoms"},
 
     {"multiplicity", "multiplicity", "the spin state 2S+1",
      "  multiplicity M\n"

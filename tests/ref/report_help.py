@@ -99,17 +99,27 @@ def statements(text):
 
 
 def with_example(example):
+    """The base recipe with the example in the place of the statements it
+    replaces (or after the named numbers, when it replaces none)."""
     ex = statements(example)
     kinds = {w for w, _ in ex if w}
     for k in list(kinds):
         kinds |= CONFLICTS.get(k, set())
-    base = [s for s in statements(BASE) if s[0] not in kinds]
-    # the example goes after the `cairn` line (or replaces it)
-    head = [s for s in base if s[0] == "cairn"]
-    rest = [s for s in base if s[0] != "cairn"]
+    out, placed = [], False
+    base = statements(BASE)
     if "cairn" in kinds:
-        head = []
-    return "\n".join(l for _, ls in head + ex + rest for l in ls) + "\n"
+        out, placed = ex[:], True
+    for st in base:
+        if st[0] in kinds:
+            if not placed:
+                out += ex
+                placed = True
+            continue
+        out.append(st)
+    if not placed:
+        last = max(i for i, st in enumerate(out) if st[0] in ("cairn", "let", "vary"))
+        out[last + 1:last + 1] = ex
+    return "\n".join(l for _, ls in out for l in ls) + "\n"
 
 
 FCIDUMP = """ &FCI NORB=2,NELEC=2,MS2=0,
