@@ -313,6 +313,79 @@ static void test_json_read_errors(void **state) {
   }
 }
 
+/* The n-th node of the tree in preorder and its parent (NULL when n is past
+ * the end). */
+static cJSON *nth_node(cJSON *root, int n, cJSON **parent) {
+  int k = 0;
+  cJSON *stack[64], *pstack[64];
+  int top = 0;
+  stack[top] = root, pstack[top++] = NULL;
+  while (top) {
+    cJSON *x = stack[--top], *px = pstack[top];
+    if (k++ == n) {
+      *parent = px;
+      return x;
+    }
+    /* push children last-first so they pop in order */
+    int m = 0;
+    for (cJSON *c = x->child; c; c = c->next) m++;
+    for (int i = m - 1; i >= 0; i--) {
+      cJSON *c = x->child;
+      for (int j = 0; j < i; j++) c = c->next;
+      assert_true(top < 64);
+      stack[top] = c, pstack[top++] = x;
+    }
+  }
+  return NULL;
+}
+
+/* Every node of a valid report replaced by each wrong kind of value: the
+ * reader either accepts it (an optional member became absent or another
+ * valid value) or refuses it with a message naming the field; never a crash
+ * (the sanitizer run watches for memory errors and leaks). */
+static void test_json_read_mutations(void **state) {
+  (void)state;
+  rep_run r;
+  make_scan(&r, 2, 0);
+  r.points[0].nchecks = 1;
+  r.points[0].checks = xcalloc(1, sizeof *r.points[0].checks);
+  r.points[0].checks[0] = (rep_check){xstrdup("particles"), 2, 2, 1e-6, 1};
+  r.points[1].ntrace = 2;
+  r.points[1].trace = xcalloc(2, sizeof(double));
+  cJSON *good = rep_json(&r, 0);
+  rep_run_free(&r);
+  int refused = 0, accepted = 0;
+  for (int n = 1;; n++) {
+    cJSON *parent, *probe = nth_node(good, n, &parent);
+    if (!probe) break;
+    for (int kind = 0; kind < 5; kind++) {
+      cJSON *copy = cJSON_Duplicate(good, 1);
+      cJSON *pp, *node = nth_node(copy, n, &pp);
+      cJSON *bad = kind == 0 ? cJSON_CreateString("x") : kind == 1 ? cJSON_CreateNumber(-1.5)
+                 : kind == 2 ? cJSON_CreateNull() : kind == 3 ? cJSON_CreateArray() : cJSON_CreateObject();
+      assert_true(cJSON_ReplaceItemViaPointer(pp, node, bad));
+      rep_run q;
+      char err[200];
+      if (rep_read_json(copy, &q, err, sizeof err) == 0) {
+        accepted++;
+        cJSON *again = rep_json(&q, 0);
+        assert_non_null(again);
+        cJSON_Delete(again);
+        rep_run_free(&q);
+      } else {
+        refused++;
+        assert_true(strlen(err) > 0);
+        assert_true(strstr(err, "expected") || strstr(err, "not one of") || strstr(err, "entries for"));
+        assert_null(q.points);
+      }
+      cJSON_Delete(copy);
+    }
+  }
+  cJSON_Delete(good);
+  assert_true(refused > 100);
+  assert_true(accepted > 0);
+}
+
 /* ---- CSV ----------------------------------------------------------------- */
 
 static void test_csv(void **state) {
@@ -569,6 +642,7 @@ int main(void) {
       cmocka_unit_test(test_log_axis),      cmocka_unit_test(test_fmt_num),
       cmocka_unit_test(test_paths),         cmocka_unit_test(test_json_fields),
       cmocka_unit_test(test_json_round_trip), cmocka_unit_test(test_json_read_errors),
+      cmocka_unit_test(test_json_read_mutations),
       cmocka_unit_test(test_csv),           cmocka_unit_test(test_text),
       cmocka_unit_test(test_scan_curves),   cmocka_unit_test(test_convergence),
       cmocka_unit_test(test_failed_writes), cmocka_unit_test(test_help_topics),
