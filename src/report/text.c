@@ -12,6 +12,7 @@
 
 #include <math.h>
 #include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 
 #define ACC_MEH (REP_CHEMICAL_ACCURACY * 1e3)
@@ -23,6 +24,23 @@ static const char *mEh(char *buf, double eh) {
   if (m != 0 && fabs(m) < 1e-3) snprintf(buf, 32, "%.2e", m);
   else snprintf(buf, 32, "%.4f", m);
   return buf;
+}
+
+/* The fewest decimals (at most 6) that show every scanned value exactly
+ * enough to tell them apart as written: 0.8, 1.0, 1.2 rather than 1. */
+static int param_decimals(const rep_run *r) {
+  int d = 0;
+  for (int i = 0; i < r->npoints; i++) {
+    const rep_point *p = &r->points[i];
+    if (!p->has_param || !isfinite(p->param)) continue;
+    while (d < 6) {
+      char b[64];
+      snprintf(b, sizeof b, "%.*f", d, p->param);
+      if (fabs(strtod(b, NULL) - p->param) <= 1e-9 * fmax(1, fabs(p->param))) break;
+      d++;
+    }
+  }
+  return d;
 }
 
 static const char *unit_sp(const rep_run *r) { return r->param_unit && *r->param_unit ? " " : ""; }
@@ -144,7 +162,7 @@ static void block(FILE *f, const rep_run *r, int i, unsigned flags) {
   const rep_point *p = &r->points[i];
   if (rep_is_scan(r)) {
     fprintf(f, "\npoint %d of %d: %s = ", i + 1, r->npoints, r->param_name);
-    if (p->has_param) fprintf(f, "%g%s%s\n", p->param, unit_sp(r), unit(r));
+    if (p->has_param) fprintf(f, "%.*f%s%s\n", param_decimals(r), p->param, unit_sp(r), unit(r));
     else fprintf(f, "?\n");
   } else {
     fprintf(f, "\n");
@@ -183,6 +201,8 @@ static void scan_tables(FILE *f, const rep_run *r, unsigned flags) {
   int wp = (int)strlen(pname) > 10 ? (int)strlen(pname) : 10;
   int any_exact = 0;
   for (int i = 0; i < r->npoints; i++) any_exact |= r->points[i].e.has_exact;
+  char pfmt[16];
+  snprintf(pfmt, sizeof pfmt, "%%.%df", param_decimals(r));
 
   if (any_exact) {
     fprintf(f, "\nenergies: the exact energy in hartree, the others in mEh above it\n");
@@ -195,7 +215,7 @@ static void scan_tables(FILE *f, const rep_run *r, unsigned flags) {
   for (int i = 0; i < r->npoints; i++) {
     const rep_point *p = &r->points[i];
     double v;
-    cell(f, wp - 1, p->has_param, "%g", p->param);
+    cell(f, wp - 1, p->has_param, pfmt, p->param);
     if (any_exact) {
       int hx = rep_point_energy(p, REP_S_EXACT, &v);
       cell(f, 14, hx, "%.8f", v);
@@ -225,7 +245,7 @@ static void scan_tables(FILE *f, const rep_run *r, unsigned flags) {
   double total = 0;
   for (int i = 0; i < r->npoints; i++) {
     const rep_point *p = &r->points[i];
-    cell(f, wp - 1, p->has_param, "%g", p->param);
+    cell(f, wp - 1, p->has_param, pfmt, p->param);
     cell(f, 8, p->sym.has, "%.4f", p->sym.particles);
     cell(f, 8, p->sym.has, "%.4f", p->sym.spin_z);
     cell(f, 8, p->sym.has, "%.4f", p->sym.spin_squared);
@@ -239,7 +259,14 @@ static void scan_tables(FILE *f, const rep_run *r, unsigned flags) {
     total += p->seconds;
   }
 
-  /* the points that need a word */
+  /* the points that need a word, after a blank line */
+  int notes = 0;
+  for (int i = 0; i < r->npoints; i++) {
+    const rep_point *p = &r->points[i];
+    notes |= p->failure || (p->e.has_ccsd && !p->e.ccsd_converged) || (p->has_optimizer && !p->converged);
+    for (int c = 0; c < p->nchecks; c++) notes |= !p->checks[c].passed;
+  }
+  if (notes) fprintf(f, "\n");
   int outside = 0, known = 0;
   for (int i = 0; i < r->npoints; i++) {
     const rep_point *p = &r->points[i];
@@ -249,7 +276,8 @@ static void scan_tables(FILE *f, const rep_run *r, unsigned flags) {
       outside += fabs(v) * 1e3 > ACC_MEH;
     }
     char where[96];
-    if (p->has_param) snprintf(where, sizeof where, "point %d (%s = %g)", i + 1, r->param_name, p->param);
+    if (p->has_param)
+      snprintf(where, sizeof where, "point %d (%s = %.*f)", i + 1, r->param_name, param_decimals(r), p->param);
     else snprintf(where, sizeof where, "point %d", i + 1);
     if (p->failure) fprintf(f, "%s: FAILED: %s\n", where, p->failure);
     if (p->e.has_ccsd && !p->e.ccsd_converged) fprintf(f, "%s: CCSD did not converge (left out)\n", where);
