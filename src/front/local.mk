@@ -1,8 +1,13 @@
 ## recipe language front end: scanner, parser, AST, resolve, fmt, diff
 ## The scanner and parser are generated into the build tree (grammar/).
 libcairn_a_SOURCES += src/front/ast.c src/front/ast.h src/front/parse.c src/front/parse.h \
-	src/front/suggest.c src/front/suggest.h
-nodist_libcairn_a_SOURCES = grammar/recipe.tab.c grammar/recipe.tab.h grammar/recipe.lex.c grammar/recipe.lex.h
+	src/front/suggest.c src/front/suggest.h src/front/resolve.c src/front/resolve.h src/front/eval.c \
+	src/front/space.c src/front/ir.c
+# The generated scanner and parser are compiled as their own convenience
+# library, whose objects go into libcairn.a.
+noinst_LIBRARIES += libcairn_grammar.a
+nodist_libcairn_grammar_a_SOURCES = grammar/recipe.tab.c grammar/recipe.tab.h grammar/recipe.lex.c grammar/recipe.lex.h
+libcairn_a_LIBADD = grammar/recipe.tab.$(OBJEXT) grammar/recipe.lex.$(OBJEXT)
 BUILT_SOURCES += grammar/recipe.tab.h grammar/recipe.lex.h
 CLEANFILES += grammar/recipe.tab.c grammar/recipe.tab.h grammar/recipe.lex.c grammar/recipe.lex.h \
 	grammar/recipe.output

@@ -147,7 +147,7 @@ int recipe_yylex(RECIPE_YYSTYPE *lval, diag_span *lloc, front_parser *p) {
     *lloc = t->loc;
     lval->flag = t->flag;
     p->line_start = t->kind == NL;
-    if (t->kind == RBRACE) p->in_block = 0;
+    if (t->kind == RBRACE) p->in_block = 0, p->block_kw = 0;
     return t->kind;
   }
   RECIPE_YYSTYPE v;
@@ -172,6 +172,7 @@ int recipe_yylex(RECIPE_YYSTYPE *lval, diag_span *lloc, front_parser *p) {
       }
     }
     p->in_block = 0;
+    p->block_kw = 0;
     push(p, NL, at);
     push(p, k, loc);
     p->queue[1].flag = v.flag;
@@ -296,6 +297,7 @@ void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, i
     if (!strcmp(e, "name")) e = "a name";
     else if (!strcmp(e, "number")) e = "a number";
     else if (!strcmp(e, "string")) e = "a string";
+    else if (!strcmp(e, "unit") && nexpected > 1) continue; /* an optional suffix */
     else if (!strcmp(e, "unit")) e = "a unit";
     else if (!strcmp(e, "bit string")) e = "a bit string";
     else if (!strcmp(e, "basis set name")) e = "a basis set name";
@@ -331,7 +333,7 @@ void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, i
   if (strcmp(unexpected, "sign") == 0 && has(nexpected, expected, "end of line"))
     diag_help(p->d, "after a space, a sign that touches what follows starts a new value (`0 -1` is two "
                     "numbers); to subtract, put spaces on both sides: `a - 1`");
-  else if (p->in_block && p->block_kw == ATOMS && value)
+  else if (p->in_block && p->block_kw == ATOMS && (value || has(nexpected, expected, "end of line")))
     diag_help(p->d, "an atom line is an element symbol and three coordinates: `H  0  0  0.74`");
   util_buf_free(&what);
   util_buf_free(&list);

@@ -108,15 +108,15 @@ int rs_index(rs *c, diag_span s, int bad, long *out) {
 }
 
 /* "unknown X `w`" with a did-you-mean and the list of what is known. */
-static void unknown_word(rs *c, diag_span w, const char *what, const char *const *known, int n) {
+static void unknown_word(rs *c, diag_span w, const char *what, const char *plural, const char *const *known, int n) {
   size_t len;
   const char *t = ast_text(c->d, w, &len);
   diag_report(c->d, DIAG_ERROR, w, "unknown %s `%.*s`", what, (int)len, t);
   const char *s = suggest_word(t, len, known, n);
   util_buf b = {0};
   for (int i = 0; i < n; i++) util_buf_printf(&b, "%s%s", i ? ", " : "", known[i]);
-  if (s) diag_help(c->d, "did you mean `%s`? (%ss: %s)", s, what, b.s);
-  else diag_help(c->d, "%ss: %s", what, b.s);
+  if (s) diag_help(c->d, "did you mean `%s`? (%s: %s)", s, plural, b.s);
+  else diag_help(c->d, "%s: %s", plural, b.s);
   util_buf_free(&b);
 }
 
@@ -619,7 +619,7 @@ static void resolve_encoding(rs *c) {
   if (!s) return;
   static const char *const names[] = {"jordan-wigner", "bravyi-kitaev", "parity"};
   int k = word_index(c, s->name, names, 3);
-  if (k < 0) unknown_word(c, s->name, "encoding", names, 3);
+  if (k < 0) unknown_word(c, s->name, "encoding", "encodings", names, 3);
   else c->r->encoding = (ir_encoding)k;
   c->r->encoding_span = s->span;
   static const char *const opts[] = {"taper"};
@@ -648,7 +648,7 @@ static void resolve_reference(rs *c) {
     static const char *const names[] = {"hartree-fock", "mean-field"};
     int k = word_index(c, s->name, names, 2);
     if (k < 0) {
-      unknown_word(c, s->name, "reference", names, 2);
+      unknown_word(c, s->name, "reference", "references", names, 2);
       diag_help(c->d, "or give the occupation of each qubit: `reference bits 11110000`");
     } else {
       ref->kind = (ir_reference_kind)k;
@@ -684,7 +684,7 @@ static void resolve_keeps(rs *c) {
     c->cur = i;
     int k = word_index(c, s->name, names, 3);
     if (k < 0) {
-      unknown_word(c, s->name, "symmetry", names, 3);
+      unknown_word(c, s->name, "symmetry", "symmetries", names, 3);
       continue;
     }
     if (first[k]) {
@@ -712,7 +712,7 @@ static void resolve_keeps(rs *c) {
 
 /* Options of the pool rules.  ORDER RULES: ir_rule_kind up to IR_RULE_QUBIT_DOUBLES. */
 static const char *const rule_words[] = {"singles", "doubles", "entanglers"};
-static const char *const all_rules[] = {"singles", "doubles", "entanglers", "qubit", "word", "excite"};
+static const char *const all_rules[] = {"singles", "doubles", "entanglers", "qubit singles", "qubit doubles", "word", "excite"};
 static const char *const opt_words[] = {"generalized", "paired", "spin-adapted"};
 static const unsigned opt_bits[] = {IR_OPT_GENERALIZED, IR_OPT_PAIRED, IR_OPT_SPIN_ADAPTED};
 
@@ -742,7 +742,7 @@ static int rule_words_kind(rs *c, ast_stmt *it, ir_rule *rule) {
   } else {
     int k = word_index(c, w0, rule_words, 3);
     if (k < 0) {
-      unknown_word(c, w0, "pool rule", all_rules, 6);
+      unknown_word(c, w0, "pool rule", "pool rules", all_rules, 7);
       return -1;
     }
     rule->kind = k == 0 ? IR_RULE_SINGLES : k == 1 ? IR_RULE_DOUBLES : IR_RULE_ENTANGLERS;
@@ -946,7 +946,7 @@ static void resolve_optimize(rs *c) {
   c->cur = order_of(c, s);
   static const char *const methods[] = {"lbfgs", "slsqp", "bobyqa", "cobyla", "nelder-mead"};
   int m = word_index(c, s->name, methods, 5);
-  if (m < 0) unknown_word(c, s->name, "optimizer", methods, 5);
+  if (m < 0) unknown_word(c, s->name, "optimizer", "optimizers", methods, 5);
   else o->method = (ir_method)m;
   static const char *const settings[] = {"tolerance", "iterations", "starts", "seed", "guess"};
   const ast_stmt *seen[5] = {0};
@@ -1013,7 +1013,7 @@ static void resolve_emits(rs *c) {
     ast_stmt *s = c->st[i];
     if (s->kind != AST_EMIT) continue;
     int f = word_index(c, s->name, formats, 3);
-    if (f < 0) unknown_word(c, s->name, "output format", formats, 3);
+    if (f < 0) unknown_word(c, s->name, "output format", "output formats", formats, 3);
     char *p = unquote(c->d, s->word);
     if (!*p) {
       diag_report(c->d, DIAG_ERROR, s->word, "`emit` needs a file name");
