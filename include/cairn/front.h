@@ -59,6 +59,7 @@ typedef enum front_change_op { FRONT_ADDED, FRONT_REMOVED, FRONT_CHANGED } front
 typedef struct front_change {
   front_change_op op;
   char *section;  /* "basis", "geometry", "pool", ... */
+  char *item;     /* which part of the section ("atom 2 (H)"), or NULL */
   char *before;   /* REMOVED, CHANGED: the old value; NULL for ADDED */
   char *after;    /* ADDED, CHANGED: the new value; NULL for REMOVED */
 } front_change;
@@ -68,9 +69,9 @@ typedef struct front_changes {
   size_t n, cap;
 } front_changes;
 
-/* Copies section/before/after (either value may be NULL). */
-void front_changes_add(front_changes *c, front_change_op op, const char *section, const char *before,
-                       const char *after);
+/* Copies its strings (item and either value may be NULL). */
+void front_changes_add(front_changes *c, front_change_op op, const char *section, const char *item,
+                       const char *before, const char *after);
 void front_changes_free(front_changes *c);
 
 /* Append the differences from a to b.  Lengths compare with a tolerance of
@@ -78,10 +79,12 @@ void front_changes_free(front_changes *c);
 void front_diff(const ir_recipe *a, const ir_recipe *b, front_changes *out);
 
 /* Text form, one line per change:  `~ basis: sto-3g -> 6-31g`,
- * `- pool: doubles paired`, `+ pool: doubles`. */
+ * `- pool: doubles paired`, `+ pool: doubles`,
+ * `~ geometry: atom 2 (H): (0, 0, 1.4) -> (0, 0, 1.5) bohr`. */
 void front_changes_print(const front_changes *c, FILE *out);
-/* JSON form: {"same": bool, "changes": [{"op": "changed", "section": ...,
- * "before": ..., "after": ...}]}; malloc'd text, caller frees. */
+/* JSON form: {"cairn": 1, "a": path, "b": path, "same": bool, "changes":
+ * [{"op": "changed", "section": ..., "item": ..., "before": ..., "after": ...}]}
+ * (absent values are left out); malloc'd text, caller frees. */
 char *front_changes_json(const front_changes *c, const char *a_path, const char *b_path);
 
 #endif

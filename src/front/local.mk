@@ -2,7 +2,7 @@
 ## The scanner and parser are generated into the build tree (grammar/).
 libcairn_a_SOURCES += src/front/ast.c src/front/ast.h src/front/parse.c src/front/parse.h \
 	src/front/suggest.c src/front/suggest.h src/front/resolve.c src/front/resolve.h src/front/eval.c \
-	src/front/space.c src/front/ir.c
+	src/front/space.c src/front/ir.c src/front/fmt.c src/front/diff.c
 # The generated scanner and parser are compiled as their own convenience
 # library, whose objects go into libcairn.a.
 noinst_LIBRARIES += libcairn_grammar.a
