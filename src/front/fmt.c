@@ -424,20 +424,44 @@ int front_fmt(diag_ctx *d, int32_t file, util_buf *out) {
   }
   layout_tables(&f);
 
+  /* a blank line before line i? */
+  char *blank = xcalloc(f.n + 1, 1);
+  for (size_t i = 1; i < f.n; i++)
+    blank[i] = f.v[i].line > f.v[i - 1].line + 1 && !f.v[i - 1].opens && !f.v[i].closes;
+  /* trailing comments of neighbouring lines line up */
+  size_t *col = xcalloc(f.n + 1, sizeof *col);
+  for (size_t i = 0; i < f.n;) {
+    if (f.v[i].comment < 0) {
+      i++;
+      continue;
+    }
+    size_t j = i, w = 0;
+    while (j < f.n && f.v[j].comment >= 0 && (j == i || !blank[j])) {
+      size_t len = strlen(f.v[j].text) + 2 * (size_t)f.v[j].indent;
+      if (len > w) w = len;
+      j++;
+    }
+    for (size_t k = i; k < j; k++) col[k] = w;
+    i = j;
+  }
   util_buf b = {0};
   util_buf_append(&b, "", 0);
   for (size_t i = 0; i < f.n; i++) {
     fmt_line *l = &f.v[i];
-    if (i > 0 && l->line > f.v[i - 1].line + 1 && !f.v[i - 1].opens && !l->closes) util_buf_append(&b, "\n", 1);
+    if (blank[i]) util_buf_append(&b, "\n", 1);
+    size_t start = b.len;
     if (l->indent) util_buf_append(&b, "  ", 2);
     util_buf_printf(&b, "%s", l->text);
     if (l->comment >= 0) {
+      while (b.len - start < col[i]) util_buf_append(&b, " ", 1);
       char *ct = comment_text(&f, l->comment);
       util_buf_printf(&b, "  %s", ct);
       free(ct);
     }
     util_buf_append(&b, "\n", 1);
   }
+  free(blank);
+  free(col);
   util_buf_append(out, b.s, b.len);
   util_buf_free(&b);
   for (size_t i = 0; i < f.n; i++) {
