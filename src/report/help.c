@@ -24,7 +24,7 @@ static const help_entry topics[] = {
      "  `0 - r` is one.  Strings are in double quotes and stay on one line.\n"
      "  Recipes are plain ASCII.\n",
      "# water, symmetric stretch\n"
-     "let r = 0.96 angstrom      # a named length",
+     "let r = 0.96 angstrom  # a named length",
      "cairn let expressions units"},
 
     {"cairn", "cairn", "the language version line that opens a recipe",
@@ -42,7 +42,7 @@ static const help_entry topics[] = {
      "  statements use.  A name is defined once; a `vary` statement turns a\n"
      "  `let` into the variable of a scan.\n",
      "let r = 0.96 angstrom\n"
-     "let half = 104.5 deg / 2",
+     "let half = 104.5 deg/2",
      "vary expressions units"},
 
     {"expressions", "sin cos tan sqrt exp log", "arithmetic, functions and named numbers in values",
@@ -52,7 +52,7 @@ static const help_entry topics[] = {
      "  or radians), sqrt, exp and log (natural logarithm).  A unit after a value\n"
      "  says what it measures (`0.96 angstrom`).\n",
      "let r = 0.96 angstrom\n"
-     "let y = r * sin(52.25 deg)",
+     "let y = r*sin(52.25 deg)",
      "units let syntax"},
 
     {"units", "angstrom bohr deg rad", "units of lengths and angles",
@@ -89,7 +89,7 @@ static const help_entry topics[] = {
      "  Instead of atoms and a basis set, a recipe may read `integrals` from an\n"
      "  FCIDUMP file.\n",
      "atoms angstrom {\n"
-     "  O  0   0                0\n"
+     "  O  0   0                 0\n"
      "  H  0   r*sin(52.25 deg)  r*cos(52.25 deg)\n"
      "  H  0  -r*sin(52.25 deg)  r*cos(52.25 deg)\n"
      "}",

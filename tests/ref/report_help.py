@@ -12,7 +12,8 @@ topic that mentions the word.
 
 Each topic's example is put into a base recipe (water, STO-3G, 4 electrons in
 4 orbitals), replacing the base's statements of the same kind, and the result
-must pass `cairn check`.  Exit 77 only when the front end is not in this tree
+must pass `cairn check`; every line of the example must come out of
+`cairn fmt` unchanged (the help shows canonical layout).  Exit 77 only when the front end is not in this tree
 yet (no grammar/recipe.l): then the vocabulary alone is checked.
 """
 import os
@@ -164,8 +165,14 @@ def check_examples(tops):
                                stderr=subprocess.STDOUT, text=True)
             if p.returncode != 0:
                 fail(f"the example of `cairn help {name}` does not pass `cairn check`:\n{text}\n{p.stdout}")
+            # and it is written the way `cairn fmt` writes it: its lines survive formatting
+            subprocess.run([CAIRN, "fmt", path], stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL)
+            formatted = open(path).read().split("\n")
+            for line in ex.split("\n"):
+                if line not in formatted:
+                    fail(f"the example of `cairn help {name}` is not in `cairn fmt` layout: {line!r}")
             n += 1
-        print(f"{n} help examples pass `cairn check`")
+        print(f"{n} help examples pass `cairn check` and keep their lines through `cairn fmt`")
     finally:
         subprocess.run(["rm", "-rf", work])
 

@@ -31,7 +31,16 @@ for c in $("$cairn" --help | sed -n '/^commands:/,/^$/p' | awk 'NR > 1 && NF { p
   grep -q "^ *cairn $c\b" "$tmp/commands.txt" || { echo "FAIL: command $c is not in COMMANDS"; fail=1; }
 done
 [ $n -ge 7 ] || { echo "FAIL: found only $n commands in cairn --help"; fail=1; }
+# the recipe under EXAMPLES passes `cairn check` and is in `cairn fmt` layout
+sed -n '/^\.SH EXAMPLES/,/^\.SH/p' "$page" | awk '/^\.nf/ { n++; on = n == 1; next } /^\.fi/ { on = 0 } on' |
+  sed 's/\\-/-/g' >"$tmp/example.cairn"
+if ! "$cairn" --color=never check "$tmp/example.cairn" >"$tmp/check.txt" 2>&1; then
+  echo "FAIL: the example recipe of the man page does not pass cairn check:"; cat "$tmp/check.txt"; fail=1
+fi
+if ! "$cairn" fmt --check "$tmp/example.cairn" >/dev/null 2>&1; then
+  echo "FAIL: the example recipe of the man page is not in cairn fmt layout"; fail=1
+fi
 lines=$(wc -l <"$tmp/page.txt")
 [ "$lines" -gt 100 ] || { echo "FAIL: the rendered page has only $lines lines"; fail=1; }
-[ $fail = 0 ] && echo "man page: no warnings, 8 sections, $n commands documented, $lines lines rendered"
+[ $fail = 0 ] && echo "man page: no warnings, 8 sections, $n commands documented, example recipe checks and is formatted, $lines lines rendered"
 exit $fail
