@@ -182,10 +182,11 @@ static const help_entry topics[] = {
      "  reference hartree-fock | mean-field | bits BITS\n"
      "\n"
      "  hartree-fock: the Hartree-Fock determinant of the active space, in the\n"
-     "  recipe's encoding.  mean-field: a product state of single-qubit\n"
-     "  rotations whose angles are optimized with the ansatz (the qubit mean-field\n"
-     "  reference of qubit coupled cluster).  bits: an explicit basis state, one\n"
-     "  character per qubit, the leftmost character is qubit 0.\n"
+     "  recipe's encoding.  mean-field: the product state of lowest energy,\n"
+     "  each qubit rotated on its own (the qubit mean-field reference of qubit\n"
+     "  coupled cluster); it is the Hartree-Fock state itself when no rotation\n"
+     "  lowers the energy.  bits: an explicit basis state, one character per\n"
+     "  qubit, the leftmost character is qubit 0.\n"
      "  Default: hartree-fock.\n",
      "reference bits 11110000", "encoding keep indices"},
 
@@ -329,8 +330,8 @@ static const help_entry topics[] = {
      "  order as written | order by gradient | order by rank\n"
      "\n"
      "  as written: the order of the pool.  by gradient: decreasing |gradient|.\n"
-     "  by rank: by excitation rank (the number of qubits a generator moves),\n"
-     "  then by decreasing |gradient|.  Ties keep the order of the pool.  The\n"
+     "  by rank: lowest excitation rank (the number of qubits a generator moves)\n"
+     "  first, then by decreasing |gradient|.  Ties keep the order of the pool.  The\n"
      "  first generator in the order acts first on the reference.\n"
      "  Default: as written.\n",
      "order by gradient", "choose pool trotter"},
