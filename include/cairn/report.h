@@ -72,6 +72,9 @@ typedef struct rep_point {
   int best_start;              /* 0-based index into start_energies */
   double *trace;               /* energy after each iteration of the best start */
   int ntrace;
+  double *params;              /* every parameter of the rotation program, optimized, in program
+                                * order (reference angles first): what `cairn build --bind` reads */
+  int nparams;
   double seconds;
   char *failure;               /* non-NULL: the point failed; the message */
 } rep_point;
@@ -112,7 +115,8 @@ void rep_text(FILE *f, const rep_run *r, unsigned flags);
 
 /* The JSON report, schema v1 (DESIGN.md), plus these additive fields:
  * top level "basis" (when known) and "scan": {"name", "unit"} for a scan;
- * per point "exact_spin_squared" (with the exact energy), "checks"
+ * per point "parameters" (rep_point.params, when there are any),
+ * "exact_spin_squared" (with the exact energy), "checks"
  * [{symmetry, value, target, tolerance, passed}] when there are any,
  * "energies.ccsd_converged": false when CCSD did not converge,
  * "optimizer": {"starts", "best_start", "start_energies", "trace"} when

@@ -50,6 +50,7 @@ static cJSON *point(const rep_run *r, const rep_point *p, unsigned flags) {
   int has_err = rep_point_error(p, REP_S_ANSATZ, &err);
   num(o, "error", has_err, err);
   num(o, "exact_spin_squared", p->e.has_exact, p->exact_s2);
+  if (p->nparams > 0 && p->params) cJSON_AddItemToObject(o, "parameters", numbers(p->params, p->nparams));
   cJSON *gens = cJSON_AddArrayToObject(o, "generators");
   for (int g = 0; g < p->ngens; g++) {
     const rep_generator *x = &p->gens[g];

@@ -140,6 +140,8 @@ static void read_point(reader *rd, const cJSON *j, const char *w, const char *pn
   p->error = opt_num(rd, j, "error", w, &p->has_error);
   int has;
   p->exact_s2 = opt_num(rd, j, "exact_spin_squared", w, &has);
+  const cJSON *pa = opt_arr(rd, j, "parameters", w);
+  if (pa) p->params = numbers(rd, pa, w, "parameters", &p->nparams);
   const cJSON *gens = opt_arr(rd, j, "generators", w);
   if (gens) {
     p->ngens = cJSON_GetArraySize(gens);

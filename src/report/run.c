@@ -26,6 +26,7 @@ void rep_run_free(rep_run *r) {
     free(p->method);
     free(p->start_energies);
     free(p->trace);
+    free(p->params);
     free(p->failure);
   }
   free(r->points);

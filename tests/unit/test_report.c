@@ -218,6 +218,7 @@ static void test_json_fields(void **state) {
                         "symmetry", "gates", "optimizer", "seconds"};
   for (size_t k = 0; k < sizeof keys / sizeof *keys; k++) assert_non_null(cJSON_GetObjectItem(p0, keys[k]));
   assert_true(cJSON_GetObjectItem(cJSON_GetObjectItem(p0, "params"), "r")->valuedouble == 0.5);
+  assert_null(cJSON_GetObjectItem(p0, "parameters")); /* none given: absent */
   cJSON *e0 = cJSON_GetObjectItem(p0, "energies");
   assert_null(cJSON_GetObjectItem(e0, "mp2")); /* absent values are absent */
   assert_non_null(cJSON_GetObjectItem(e0, "hf"));
@@ -257,6 +258,9 @@ static void test_json_round_trip(void **state) {
   p->nchecks = 1;
   p->checks = xcalloc(1, sizeof *p->checks);
   p->checks[0] = (rep_check){xstrdup("spin-squared"), 3e-5, 0, 1e-6, 0};
+  p->nparams = 2; /* a reference angle and the generator's theta */
+  p->params = xcalloc(2, sizeof(double));
+  p->params[0] = 0.25, p->params[1] = 0.11;
   cJSON *j = rep_json(&r, 0);
   char *a = cJSON_Print(j);
   cJSON_Delete(j);
@@ -269,6 +273,9 @@ static void test_json_round_trip(void **state) {
   assert_true(q.points[0].start_energies[1] == -1.1);
   assert_int_equal(q.points[0].checks[0].passed, 0);
   assert_string_equal(q.param_unit, "angstrom");
+  assert_int_equal(q.points[0].nparams, 2);
+  assert_true(q.points[0].params[0] == 0.25);
+  assert_null(q.points[1].params);
   j = rep_json(&q, 0);
   char *b = cJSON_Print(j);
   cJSON_Delete(j);
