@@ -44,6 +44,13 @@ static void footnote(util_buf *b, const rep_run *r, double y) {
   free(s);
 }
 
+/* The key to the off-axis triangles, beside a panel at height y. */
+static void offscale_note(util_buf *b, double y) {
+  rep_svg_offscale_mark(b, LEGEND_X + 15, y + 4, 1, "#000000");
+  rep_svg_text(b, LEGEND_X + 38, y, "start", 12, 0, NULL, "note", "off the axis (|error| below");
+  rep_svg_text(b, LEGEND_X + 38, y + 16, "start", 12, 0, NULL, "note", "its lowest value, or zero)");
+}
+
 static char *param_label(const rep_run *r) {
   const char *name = r->param_name ? r->param_name : "parameter";
   if (r->param_unit && *r->param_unit) return xasprintf("%s / %s", name, r->param_unit);
@@ -161,6 +168,7 @@ int rep_write_scan_svg(const rep_run *r, const char *path) {
   rep_svg_legend(&b, LEGEND_X, 72, nitems, items);
 
   double foot = 520;
+  int off = 0;
   if (two) {
     rep_panel bot = {.x = PANEL_X, .y = 500, .w = PANEL_W, .h = 270, .id = "error", .xlabel = xl,
                      .ylabel = "|E - E(exact)| / mEh"};
@@ -173,10 +181,11 @@ int rep_write_scan_svg(const rep_run *r, const char *path) {
     for (int s = 0; s < NSERIES; s++) {
       if (!ehas[s]) continue;
       char *id = xasprintf("error-%s", series[s].id);
-      rep_panel_curve(&b, &bot, id, &series[s].style, n, x, err[s], eok[s]);
+      off += rep_panel_curve(&b, &bot, id, &series[s].style, n, x, err[s], eok[s]);
       free(id);
     }
     rep_panel_hline_label(&b, &bot, acc, "#cc0000", "chemical accuracy 1.6 mEh");
+    if (off) offscale_note(&b, bot.y + 14);
     rep_panel_end(&b);
     rep_svg_text(&b, PANEL_X, 482, "start", 14, 0, "bold", "subtitle", "error against the exact energy");
     foot = 840;
@@ -234,11 +243,12 @@ int rep_write_convergence_svg(const rep_run *r, int point, const char *path) {
     rep_axis_linear(&pan.ay, lo, hi, 7, REP_AXIS_TIGHT);
     rep_panel_begin(&b, &pan);
   }
-  rep_panel_curve(&b, &pan, "convergence-ansatz", &st, n, x, y, ok);
+  int off = rep_panel_curve(&b, &pan, "convergence-ansatz", &st, n, x, y, ok);
   if (exact) rep_panel_hline_label(&b, &pan, REP_CHEMICAL_ACCURACY * 1e3, "#cc0000", "chemical accuracy 1.6 mEh");
   rep_panel_end(&b);
   rep_legend_item item = {exact ? "ansatz (VQE) error" : "ansatz (VQE) energy", st};
   rep_svg_legend(&b, LEGEND_X, 72, 1, &item);
+  if (off && exact) offscale_note(&b, 110);
   footnote(&b, r, 500);
   rep_svg_end(&b);
   free(title);

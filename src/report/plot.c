@@ -227,34 +227,59 @@ static void stroke_attrs(util_buf *b, const rep_style *s) {
   if (s->dash) util_buf_printf(b, " stroke-dasharray=\"%s\"", s->dash);
 }
 
-void rep_panel_curve(util_buf *b, const rep_panel *p, const char *id, const rep_style *s, int n,
-                     const double *x, const double *y, const int *ok) {
-  int any = 0;
+void rep_svg_offscale_mark(util_buf *b, double cx, double cy, int down, const char *color) {
+  double d = down ? 1 : -1; /* the tip is at (cx, cy) */
+  util_buf_printf(b, "<path d=\"M%.2f,%.2f L%.2f,%.2f L%.2f,%.2f Z\" fill=\"#ffffff\" stroke=\"%s\" "
+                     "stroke-width=\"1.5\"/>\n",
+                  cx, cy, cx - 5, cy - 9 * d, cx + 5, cy - 9 * d, color);
+}
+
+/* -1 below the y axis, +1 above it, 0 on it. */
+static int off_axis(const rep_panel *p, double y) {
+  double f = rep_axis_frac(&p->ay, y);
+  if (isnan(f) || f < -1e-9) return -1;
+  return f > 1 + 1e-9 ? 1 : 0;
+}
+
+int rep_panel_curve(util_buf *b, const rep_panel *p, const char *id, const rep_style *s, int n,
+                    const double *x, const double *y, const int *ok) {
+  int any = 0, off = 0;
   for (int i = 0; i < n; i++) any |= !ok || ok[i];
-  if (!any) return;
+  if (!any) return 0;
   util_buf_printf(b, "<path class=\"curve\" id=\"%s\"", id);
   stroke_attrs(b, s);
   util_buf_printf(b, " stroke-linecap=\"round\" d=\"");
-  int open = 0;     /* points in the current subpath */
+  int open = 0, first = 1; /* points in the current subpath */
   for (int i = 0; i < n; i++) {
     if (ok && !ok[i]) {
-      if (open == 1) util_buf_printf(b, " l0,0"); /* a lone point still shows as a dot */
       open = 0;
       continue;
     }
-    util_buf_printf(b, "%s%c%.2f,%.2f", i ? " " : "", open ? 'L' : 'M', rep_panel_px(p, x[i]),
+    util_buf_printf(b, "%s%c%.2f,%.2f", first ? "" : " ", open ? 'L' : 'M', rep_panel_px(p, x[i]),
                     rep_panel_py(p, y[i]));
     open++;
+    first = 0;
   }
-  if (open == 1) util_buf_printf(b, " l0,0");
   util_buf_printf(b, "\"/>\n");
-  if (!s->markers) return;
+  /* dots: every point with markers, else the points with no neighbour */
   util_buf_printf(b, "<g class=\"markers\" id=\"%s-markers\" fill=\"%s\" stroke=\"none\">\n", id, s->color);
-  for (int i = 0; i < n; i++)
-    if (!ok || ok[i])
-      util_buf_printf(b, "<circle cx=\"%.2f\" cy=\"%.2f\" r=\"3.5\"/>\n", rep_panel_px(p, x[i]),
-                      rep_panel_py(p, y[i]));
+  for (int i = 0; i < n; i++) {
+    if (ok && !ok[i]) continue;
+    int lone = (i == 0 || (ok && !ok[i - 1])) && (i == n - 1 || (ok && !ok[i + 1]));
+    if ((s->markers || lone) && off_axis(p, y[i]) == 0)
+      util_buf_printf(b, "<circle cx=\"%.2f\" cy=\"%.2f\" r=\"%.1f\"/>\n", rep_panel_px(p, x[i]),
+                      rep_panel_py(p, y[i]), s->markers ? 3.5 : 3.0);
+  }
   util_buf_printf(b, "</g>\n");
+  for (int i = 0; i < n; i++) {
+    if (ok && !ok[i]) continue;
+    int o = off_axis(p, y[i]);
+    if (!o) continue;
+    if (!off++) util_buf_printf(b, "<g class=\"offscale\" id=\"%s-offscale\">\n", id);
+    rep_svg_offscale_mark(b, rep_panel_px(p, x[i]), o < 0 ? p->y + p->h - 1 : p->y + 1, o < 0, s->color);
+  }
+  if (off) util_buf_printf(b, "</g>\n");
+  return off;
 }
 
 void rep_panel_hline(util_buf *b, const rep_panel *p, double y, const char *color, const char *dash) {

@@ -84,9 +84,15 @@ void rep_panel_begin(util_buf *b, const rep_panel *p);
 void rep_panel_end(util_buf *b);
 /* One curve: a single <path class="curve"> through the points with ok[i]
  * set (ok NULL: all); a point left out breaks the line.  With markers a
- * <g class="markers"> of circles follows.  Nothing when no point is ok. */
-void rep_panel_curve(util_buf *b, const rep_panel *p, const char *id, const rep_style *s, int n,
-                     const double *x, const double *y, const int *ok);
+ * <g class="markers"> of circles follows; without, a point with no
+ * neighbour still gets a dot.  A value off the y axis (below or above it,
+ * or not positive on a log axis) is drawn on the edge with a hollow triangle
+ * (<g class="offscale">) pointing the way it went.  Nothing when no point is
+ * ok.  Returns the number of off-axis values. */
+int rep_panel_curve(util_buf *b, const rep_panel *p, const char *id, const rep_style *s, int n,
+                    const double *x, const double *y, const int *ok);
+/* The hollow triangle of an off-axis value at (cx, cy); down: points down. */
+void rep_svg_offscale_mark(util_buf *b, double cx, double cy, int down, const char *color);
 /* A horizontal reference line at data value y (the chemical-accuracy line),
  * and its label above the right end: draw the label after the curves, so its
  * white halo keeps it readable where a curve crosses. */

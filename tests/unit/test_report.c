@@ -514,8 +514,20 @@ static void test_scan_curves(void **state) {
   assert_int_equal(count(s, "class=\"curve\" id=\"error-"), 4);
   assert_int_equal(count(s, "class=\"legend-item\""), 5);
   assert_int_equal(count(s, "class=\"accuracy\""), 1);
+  assert_null(strstr(s, "offscale")); /* every value is on its axis */
   assert_non_null(strstr(s, "r / angstrom"));
   assert_non_null(strstr(s, "energy / hartree"));
+  free(s);
+  rep_run_free(&r);
+
+  make_scan(&r, 1, 0); /* one point: every series still shows, as a dot */
+  r.points[0].error = 0; /* and an error of zero is marked off the log axis */
+  r.points[0].e.ansatz = r.points[0].e.exact;
+  s = figure(&r, 0);
+  assert_int_equal(count(s, "class=\"curve\""), 5 + 4);
+  assert_int_equal(count(s, "<circle"), 5 + 3 + 1); /* energy dots, error dots but the zero, legend marker */
+  assert_int_equal(count(s, "class=\"offscale\" id=\"error-ansatz-offscale\""), 1);
+  assert_non_null(strstr(s, "off the axis"));
   free(s);
   rep_run_free(&r);
 
