@@ -262,15 +262,17 @@ int rep_panel_curve(util_buf *b, const rep_panel *p, const char *id, const rep_s
   }
   util_buf_printf(b, "\"/>\n");
   /* dots: every point with markers, else the points with no neighbour */
-  util_buf_printf(b, "<g class=\"markers\" id=\"%s-markers\" fill=\"%s\" stroke=\"none\">\n", id, s->color);
+  int dots = 0;
   for (int i = 0; i < n; i++) {
     if (ok && !ok[i]) continue;
     int lone = (i == 0 || (ok && !ok[i - 1])) && (i == n - 1 || (ok && !ok[i + 1]));
-    if ((s->markers || lone) && off_axis(p, y[i]) == 0)
-      util_buf_printf(b, "<circle cx=\"%.2f\" cy=\"%.2f\" r=\"%.1f\"/>\n", rep_panel_px(p, x[i]),
-                      rep_panel_py(p, y[i]), s->markers ? 3.5 : 3.0);
+    if (!(s->markers || lone) || off_axis(p, y[i]) != 0) continue;
+    if (!dots++)
+      util_buf_printf(b, "<g class=\"markers\" id=\"%s-markers\" fill=\"%s\" stroke=\"none\">\n", id, s->color);
+    util_buf_printf(b, "<circle cx=\"%.2f\" cy=\"%.2f\" r=\"%.1f\"/>\n", rep_panel_px(p, x[i]), rep_panel_py(p, y[i]),
+                    s->markers ? 3.5 : 3.0);
   }
-  util_buf_printf(b, "</g>\n");
+  if (dots) util_buf_printf(b, "</g>\n");
   for (int i = 0; i < n; i++) {
     if (ok && !ok[i]) continue;
     int o = off_axis(p, y[i]);
