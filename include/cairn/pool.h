@@ -54,24 +54,23 @@ typedef struct ans_problem {
   const qubit_encoder *enc;
   const qubit_taper *taper;   /* NULL or nsym == 0: no tapering */
   const pauli_sum *H;         /* Hamiltonian on the ansatz register; NULL: static checks only */
-  const pauli_sum *sym[IR_SYM_COUNT];      /* N, S_z, S^2 on the full register */
-  const pauli_sum *sym_reg[IR_SYM_COUNT];  /* the same on the ansatz register; NULL if it does
-                                              not survive tapering (then untyped there) */
+  const pauli_sum *sym[IR_SYM_COUNT];  /* N, S_z, S^2 on the ansatz register; an entry
+                                          may be NULL when it does not survive tapering */
   const uint64_t *ref_full;   /* reference basis state on the full register (encoded bits;
-                                 Hartree-Fock bits for a mean-field reference) */
+                                 Hartree-Fock bits under a mean-field reference); under
+                                 tapering its sector is the one the taper kept */
 } ans_problem;
 
 /* The inputs of ans_problem built from a recipe (and its active space, when
- * given): encoder, Hamiltonian, tapering, symmetry operators, reference bits. */
+ * given): encoder, Hamiltonian, tapering (sector of the reference bits),
+ * symmetry operators, reference bits. */
 typedef struct ans_setup {
   ans_problem prob;
   qubit_encoder *enc;
-  pauli_sum H_full, H;        /* H is the tapered one (a copy of H_full without tapering) */
+  pauli_sum H_full, H;        /* H: on the ansatz register */
   int has_h;
   qubit_taper taper;
-  int has_taper;
-  pauli_sum sym[IR_SYM_COUNT], sym_reg[IR_SYM_COUNT];
-  int has_sym_reg[IR_SYM_COUNT];
+  pauli_sum sym[IR_SYM_COUNT];
   uint64_t *ref_full;
 } ans_setup;
 
@@ -80,6 +79,12 @@ typedef struct ans_setup {
  * Reports bad `bits` references through d.  Returns 0 or -1. */
 int ans_setup_init(ans_setup *s, const ir_recipe *r, const chem_space *cs, diag_ctx *d);
 void ans_setup_free(ans_setup *s);
+/* The reference's encoded bits on the full register (nmodes = 2 norb): the
+ * Hartree-Fock determinant (also for a mean-field reference) or the recipe's
+ * `bits`, checked for length and letters (reported at the reference).
+ * out has pauli_nwords(2 norb) words.  Returns 0 or -1. */
+int ans_reference_bits(const ir_recipe *r, const qubit_encoder *enc, int norb, int nalpha, int nbeta,
+                       diag_ctx *d, uint64_t *out);
 
 /* The reference state on the ansatz register. */
 typedef struct ans_reference {
@@ -164,6 +169,10 @@ void ans_plan_circuit(const ans_plan *pl, const ir_recipe *r, ans_circuit *c);
 /* Gradient (i/2)<ref|[G, H]|ref> of the pool's generator k at a product state,
  * by closed forms over H's terms (no statevector). */
 double ans_gen_gradient(const ans_pool *pool, size_t k, const pauli_sum *H, const ans_reference *ref);
+
+/* Ordering key of a gradient: |g| quantized to 1e-12 Eh, so that gradients
+ * equal up to rounding tie exactly and ties fall back to pool order (-1: NAN). */
+long long ans_grad_key(double g);
 
 /* Generator table in program order (`cairn show`): text or JSON (DESIGN.md). */
 void ans_table_print(const ans_plan *pl, const ir_recipe *r, const ans_problem *p, const diag_ctx *d,

@@ -62,20 +62,6 @@ double ans_screen_word(const ans_screen *s, const uint64_t *x, const uint64_t *z
 /* Expectation <psi|P|psi> of a word (real: P is Hermitian). */
 double ans_screen_expect(const ans_screen *s, const uint64_t *x, const uint64_t *z);
 
-/* ---- the Clifford map of a linear encoding (b = A n over GF(2)) ---- */
-typedef struct ans_clifford {
-  int n, nw;
-  int identity;      /* Jordan-Wigner: nothing to do */
-  uint64_t *acol;    /* n columns of A (A e_j), nw words each */
-  uint64_t *ainv;    /* n columns of A^-1 */
-} ans_clifford;
-
-void ans_clifford_init(ans_clifford *c, const qubit_encoder *enc);
-void ans_clifford_free(ans_clifford *c);
-/* Map a sum of occupation-basis words to encoded words in place
- * (X^v Z^u -> X^(A v) Z^(A^-T u), phases kept). */
-void ans_clifford_apply(const ans_clifford *c, pauli_sum *s);
-
 /* ---- building a plan ---- */
 
 /* What one pool rule did, for the messages after all rules ran. */
@@ -108,7 +94,6 @@ typedef struct ans_build {
   diag_ctx *d;
   ans_plan *pl;
   const ans_screen *scr;             /* NULL without a Hamiltonian */
-  ans_clifford cliff;
   ans_tally *tally;                  /* r->nrules */
   ans_dedupe dd;
   int type_all[IR_SYM_COUNT];        /* kept exactly: type every generator now */
@@ -141,9 +126,6 @@ void ans_type_reference(ans_build *b);
 /* Messages of every rule after expansion (symmetry.c). */
 void ans_rule_messages(ans_build *b);
 
-/* Ordering key of a gradient: |g| quantized to 1e-12 so that equal gradients
- * tie exactly and ties fall back to pool order. */
-long long ans_grad_key(double g);
 
 /* The span of the `keep` statement of symmetry s. */
 static inline diag_span ans_keep_span(const ir_recipe *r, int s) { return r->keep[s].span; }

@@ -1,4 +1,4 @@
-/* masks.c — hash sets of bit masks, and the Clifford map of a linear encoding. */
+/* masks.c — hash sets of bit masks (flip sets, group keys). */
 #include "config.h"
 
 #include "ans_priv.h"
@@ -77,66 +77,4 @@ size_t ans_maskset_add(ans_maskset *s, const uint64_t *m, int *added) {
   if (2 * s->len > s->nslots) set_rehash(s, 2 * s->nslots);
   if (added) *added = 1;
   return s->len - 1;
-}
-
-/* The encoding sends occupation n to bits A n; column j of A is the encoded
- * state of the single occupied mode j, column j of A^-1 the occupations of the
- * single set bit j.  Jordan-Wigner is recognised and skipped. */
-void ans_clifford_init(ans_clifford *c, const qubit_encoder *enc) {
-  memset(c, 0, sizeof *c);
-  int n = qubit_encoder_modes(enc), nw = pauli_nwords(n);
-  c->n = n;
-  c->nw = nw;
-  c->identity = qubit_encoder_kind(enc) == IR_ENC_JORDAN_WIGNER;
-  if (c->identity) return;
-  c->acol = xcalloc((size_t)n * (size_t)nw, sizeof *c->acol);
-  c->ainv = xcalloc((size_t)n * (size_t)nw, sizeof *c->ainv);
-  uint64_t *e = xcalloc((size_t)nw, sizeof *e);
-  for (int j = 0; j < n; j++) {
-    memset(e, 0, (size_t)nw * sizeof *e);
-    pauli_flip(e, j);
-    qubit_encoder_bits(enc, e, c->acol + (size_t)j * (size_t)nw);
-    qubit_encoder_occupations(enc, e, c->ainv + (size_t)j * (size_t)nw);
-  }
-  free(e);
-}
-
-void ans_clifford_free(ans_clifford *c) {
-  free(c->acol);
-  free(c->ainv);
-  memset(c, 0, sizeof *c);
-}
-
-static int popc_and(int nw, const uint64_t *a, const uint64_t *b) {
-  int k = 0;
-  for (int i = 0; i < nw; i++) k += __builtin_popcountll(a[i] & b[i]);
-  return k;
-}
-
-/* sigma(v,u) = i^{|v&u|} X^v Z^u, and C X^v Z^u C^+ = X^{Av} Z^{A^-T u}, so
- * sigma(v,u) -> i^{|v&u| - |v'&u'|} sigma(v',u'). */
-void ans_clifford_apply(const ans_clifford *c, pauli_sum *s) {
-  if (c->identity) return;
-  static const double complex ip[4] = {1, I, -1, -I};
-  int nw = c->nw, n = c->n;
-  uint64_t *xv = xmalloc((size_t)nw * sizeof *xv), *zu = xmalloc((size_t)nw * sizeof *zu);
-  for (size_t t = 0; t < s->len; t++) {
-    uint64_t *x = pauli_sum_x(s, t), *z = pauli_sum_z(s, t);
-    int k0 = popc_and(nw, x, z);
-    memset(xv, 0, (size_t)nw * sizeof *xv);
-    memset(zu, 0, (size_t)nw * sizeof *zu);
-    for (int j = 0; j < n; j++) {
-      if (pauli_get_x(x, j)) {
-        const uint64_t *a = c->acol + (size_t)j * (size_t)nw;
-        for (int i = 0; i < nw; i++) xv[i] ^= a[i];
-      }
-      if (popc_and(nw, c->ainv + (size_t)j * (size_t)nw, z) & 1) pauli_flip(zu, j);
-    }
-    int k1 = popc_and(nw, xv, zu);
-    s->c[t] *= ip[(((k0 - k1) % 4) + 4) % 4];
-    memcpy(x, xv, (size_t)nw * sizeof *xv);
-    memcpy(z, zu, (size_t)nw * sizeof *zu);
-  }
-  free(xv);
-  free(zu);
 }

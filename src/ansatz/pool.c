@@ -257,7 +257,6 @@ int ans_plan_build(ans_plan *pl, const ir_recipe *r, const ans_problem *p, diag_
     ans_screen_init(&scr, p->H, &pl->ref);
     b.scr = &scr;
   }
-  ans_clifford_init(&b.cliff, p->enc);
   b.tally = xcalloc((size_t)(r->nrules > 0 ? r->nrules : 1), sizeof *b.tally);
   int nsym = p->taper ? p->taper->nsym : 0;
   for (int i = 0; i < r->nrules; i++) {
@@ -288,7 +287,6 @@ int ans_plan_build(ans_plan *pl, const ir_recipe *r, const ans_problem *p, diag_
       if (pl->pool.gen[pl->order[i]].sig.sym[s] == ANS_SIG_UNTYPED) ans_type_gen(&b, pl->order[i], s);
 
   if (b.scr) ans_screen_free(&scr);
-  ans_clifford_free(&b.cliff);
   for (int i = 0; i < r->nrules; i++) {
     free(b.tally[i].z2_drop);
     free(b.tally[i].z2_text);

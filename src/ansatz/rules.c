@@ -74,8 +74,7 @@ static void qubit_generator(const ans_build *b, int k, const int *from, const in
   pauli_sum_add_sum(G, &S, 2.0 * I);
   pauli_sum_add_sum(G, &tmp, -2.0 * I);
   pauli_sum_canonicalize(G, ANS_WORD_TOL);
-  ans_clifford_apply(&b->cliff, G);
-  pauli_sum_canonicalize(G, ANS_WORD_TOL);
+  qubit_encoder_map_jw(b->p->enc, G);
   pauli_sum_free(&S);
   pauli_sum_free(&f);
   pauli_sum_free(&tmp);

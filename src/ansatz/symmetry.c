@@ -50,7 +50,7 @@ double ans_type_gen(ans_build *b, size_t k, int sym) {
   ans_gen *g = &pool->gen[k];
   const ans_problem *p = b->p;
   int tapered = p->taper && p->taper->nsym > 0;
-  if (!p->sym_reg[sym]) {
+  if (!p->sym[sym]) {
     g->sig.sym[sym] = ANS_SIG_UNKNOWN;
     return 0;
   }
@@ -68,7 +68,7 @@ double ans_type_gen(ans_build *b, size_t k, int sym) {
     }
   }
   double worst = 0;
-  g->sig.sym[sym] = (signed char)ans_sig_commutes(&pool->words, g->off, g->len, p->sym_reg[sym], &worst);
+  g->sig.sym[sym] = (signed char)ans_sig_commutes(&pool->words, g->off, g->len, p->sym[sym], &worst);
   return worst;
 }
 
@@ -153,7 +153,7 @@ void ans_type_reference(ans_build *b) {
     if (!p->sym[s]) continue;
     int exact = r->keep[s].policy == IR_KEEP_EXACTLY;
     double ev, off;
-    apply_to_basis(p->sym[s], p->ref_full, &ev, &off);
+    apply_to_basis(p->sym[s], b->pl->ref.bits, &ev, &off);
     double scale = pauli_sum_norm1(p->sym[s]) + 1;
     int eigen = off <= 1e-10 * scale;
     int right = fabs(ev - target[s]) <= 1e-9 * scale;
