@@ -24,3 +24,20 @@ grammar/recipe.lex.c: $(top_srcdir)/grammar/recipe.l grammar/recipe.tab.h
 	$(AM_V_GEN)$(LEX) -o grammar/recipe.lex.c --header-file=grammar/recipe.lex.h $(top_srcdir)/grammar/recipe.l
 grammar/recipe.lex.h: grammar/recipe.lex.c
 	@test -f $@ || { rm -f grammar/recipe.lex.c; $(MAKE) $(AM_MAKEFLAGS) grammar/recipe.lex.c; }
+
+## unit tests
+check_PROGRAMS += tests/unit/test_front_scan
+UNIT_TESTS += tests/unit/test_front_scan
+tests_unit_test_front_scan_SOURCES = tests/unit/test_front_scan.c tests/unit/test_front.h
+tests_unit_test_front_scan_CFLAGS = $(UNIT_CFLAGS)
+tests_unit_test_front_scan_LDADD = $(UNIT_LDADD)
+check_PROGRAMS += tests/unit/test_front_parse
+UNIT_TESTS += tests/unit/test_front_parse
+tests_unit_test_front_parse_SOURCES = tests/unit/test_front_parse.c tests/unit/test_front.h
+tests_unit_test_front_parse_CFLAGS = $(UNIT_CFLAGS)
+tests_unit_test_front_parse_LDADD = $(UNIT_LDADD)
+check_PROGRAMS += tests/unit/test_front_resolve
+UNIT_TESTS += tests/unit/test_front_resolve
+tests_unit_test_front_resolve_SOURCES = tests/unit/test_front_resolve.c tests/unit/test_front.h
+tests_unit_test_front_resolve_CFLAGS = $(UNIT_CFLAGS)
+tests_unit_test_front_resolve_LDADD = $(UNIT_LDADD)

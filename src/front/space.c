@@ -22,6 +22,9 @@
 #include <stdlib.h>
 #include <string.h>
 
+/* "electron" or "electrons" after a count. */
+static const char *el(long n) { return n == 1 ? "electron" : "electrons"; }
+
 /* Where the orbital count comes from, for messages. */
 static const char *orbital_source(const rs *c) {
   return c->r->problem == IR_PROBLEM_INTEGRALS ? "the integrals file" : "the basis";
@@ -57,7 +60,7 @@ static int molecule(rs *c, int *nalpha, int *nbeta) {
     if (nelec <= 0) {
       diag_report(c->d, DIAG_ERROR, charge->e[0]->span, "a charge of %d leaves %s electrons", r->charge,
                   nelec == 0 ? "no" : "a negative number of");
-      diag_note(c->d, atoms->span, "the atoms have %d electrons", zsum);
+      diag_note(c->d, atoms->span, "the atoms have %d %s", zsum, el(zsum));
       return -1;
     }
   } else {
@@ -91,18 +94,18 @@ static int molecule(rs *c, int *nalpha, int *nbeta) {
   int unpaired = m - 1;
   diag_span mspan = mult ? mult->e[0]->span : charge ? charge->span : atoms ? atoms->kw : ints->span;
   if (unpaired > nelec) {
-    diag_report(c->d, DIAG_ERROR, mspan, "multiplicity %d needs %d unpaired electrons, but there are only %d electrons",
-                m, unpaired, nelec);
+    diag_report(c->d, DIAG_ERROR, mspan, "multiplicity %d needs %d unpaired electrons, but there %s only %d %s",
+                m, unpaired, nelec == 1 ? "is" : "are", nelec, el(nelec));
     return -1;
   }
   if ((nelec - unpaired) % 2 != 0) {
     if (mult) {
-      diag_report(c->d, DIAG_ERROR, mspan, "multiplicity %d does not fit %d electrons", m, nelec);
+      diag_report(c->d, DIAG_ERROR, mspan, "multiplicity %d does not fit %d %s", m, nelec, el(nelec));
       diag_note(c->d, DIAG_NOWHERE, "%s electron count needs %s multiplicity (%s)", nelec % 2 ? "an odd" : "an even",
                 nelec % 2 ? "an even" : "an odd", nelec % 2 ? "2, 4, ..." : "1, 3, ...");
     } else {
-      diag_report(c->d, DIAG_ERROR, mspan, "the molecule has %d electrons, an odd number, so it cannot be a singlet",
-                  nelec);
+      diag_report(c->d, DIAG_ERROR, mspan, "the molecule has %d %s, an odd number, so it cannot be a singlet",
+                  nelec, el(nelec));
       diag_help(c->d, "give its spin: `multiplicity 2` for one unpaired electron");
     }
     return -1;
@@ -246,12 +249,12 @@ void rs_space(rs *c) {
     int rem = nelec - 2 * nfrozen;
     if (a || b) ok = 0;
     else if (ne > rem) {
-      diag_report(c->d, DIAG_ERROR, active->e[0]->span, "the active space asks for %ld electrons, but only %d remain%s", ne,
-                  rem, nfrozen ? " after freezing" : "");
+      diag_report(c->d, DIAG_ERROR, active->e[0]->span, "the active space asks for %ld %s, but only %d remain%s", ne,
+                  el(ne), rem, nfrozen ? " after freezing" : "");
       ok = 0;
     } else if ((rem - ne) % 2) {
       diag_report(c->d, DIAG_ERROR, active->e[0]->span,
-                  "%ld active electrons leave %ld outside the active space, an odd number", ne, rem - ne);
+                  "%ld active %s leave %ld outside the active space, an odd number", ne, el(ne), rem - ne);
       diag_note(c->d, DIAG_NOWHERE, "electrons outside the active space fill whole orbitals, two at a time");
       ok = 0;
     } else if (ne < unpaired) {
