@@ -288,6 +288,7 @@ void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, i
   const char *items[90];
   int nitems = 0;
   int value = has(nexpected, expected, "number") && has(nexpected, expected, "sign");
+  int in_block = has(nexpected, expected, "`}`");
   if (value) items[nitems++] = "a value";
   for (int i = 0; i < nexpected && nitems < 88; i++) {
     const char *e = expected[i];
@@ -295,6 +296,7 @@ void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, i
                   !strcmp(e, "function")))
       continue;
     if (!strcmp(e, "error")) continue;
+    if (in_block && !strcmp(e, "end of line")) continue; /* a blank line: not worth saying */
     if (!strcmp(e, "name")) e = "a name";
     else if (!strcmp(e, "number")) e = "a number";
     else if (!strcmp(e, "string")) e = "a string";
