@@ -51,3 +51,16 @@ tests_unit_test_front_fmt_LDADD = $(UNIT_LDADD)
 TESTS += tests/golden/recipes/run.sh tests/golden/fmt/run.sh tests/golden/diff/run.sh
 EXTRA_DIST += tests/golden/recipes tests/golden/fmt tests/golden/diff tests/unit/test_front.h \
 	examples/lih-stretched.cairn examples/water-scan.cairn examples/h4-fcidump.cairn examples/data
+
+## libFuzzer target for the parser and resolver: `make fuzz` in a tree
+## configured with CC=clang and CFLAGS holding -fsanitize=fuzzer-no-link
+## (and address,undefined); .ci/run runs it for 60 seconds.
+EXTRA_DIST += tests/fuzz/fuzz_recipe.c tests/fuzz/recipe.dict
+CLEANFILES += tests/fuzz/fuzz_recipe
+fuzz: tests/fuzz/fuzz_recipe
+tests/fuzz/fuzz_recipe: $(srcdir)/tests/fuzz/fuzz_recipe.c libcairn.a
+	@case "$(CC)" in *clang*) ;; *) echo "make fuzz: needs libFuzzer: configure with CC=clang" >&2; exit 2;; esac
+	@$(MKDIR_P) tests/fuzz
+	$(AM_V_CCLD)$(CC) $(DEFS) -I$(top_builddir) $(AM_CPPFLAGS) $(CPPFLAGS) $(AM_CFLAGS) $(CFLAGS) -fsanitize=fuzzer \
+	  -o $@ $(srcdir)/tests/fuzz/fuzz_recipe.c $(CAIRN_LIBS) $(LIBS)
+.PHONY: fuzz
