@@ -414,7 +414,7 @@ int front_fmt(diag_ctx *d, int32_t file, util_buf *out) {
     fmt_line *l = add_line(&f, f.comment_line[c], 0, comment_text(&f, c));
     l->is_comment = 1;
   }
-  qsort(f.v, f.n, sizeof *f.v, cmp_line);
+  if (f.n > 1) qsort(f.v, f.n, sizeof *f.v, cmp_line);
   /* comments inside a block are indented with it */
   int depth = 0;
   for (size_t i = 0; i < f.n; i++) {
