@@ -13,3 +13,10 @@ UNIT_TESTS += tests/unit/test_qubit
 tests_unit_test_qubit_SOURCES = tests/unit/test_qubit.c
 tests_unit_test_qubit_CFLAGS = $(UNIT_CFLAGS)
 tests_unit_test_qubit_LDADD = $(UNIT_LDADD)
+
+## reference checks (psi4, numpy, scipy live): a C driver prints our Pauli sums as JSON
+check_PROGRAMS += tests/ref/qubit_driver
+tests_ref_qubit_driver_SOURCES = tests/ref/qubit_driver.c
+tests_ref_qubit_driver_LDADD = $(CAIRN_LIBS)
+TESTS += tests/ref/qubit_spectrum.py tests/ref/qubit_fci.py
+EXTRA_DIST += tests/ref/qubit_common.py tests/ref/qubit_spectrum.py tests/ref/qubit_fci.py
