@@ -20,3 +20,12 @@ tests_ref_qubit_driver_SOURCES = tests/ref/qubit_driver.c
 tests_ref_qubit_driver_LDADD = $(CAIRN_LIBS)
 TESTS += tests/ref/qubit_spectrum.py tests/ref/qubit_fci.py
 EXTRA_DIST += tests/ref/qubit_common.py tests/ref/qubit_spectrum.py tests/ref/qubit_fci.py
+
+## benchmark (make bench): Hamiltonian build at 40 and 100 qubits
+noinst_PROGRAMS += tests/bench/qubit_bench
+tests_bench_qubit_bench_SOURCES = tests/bench/qubit_bench.c
+tests_bench_qubit_bench_LDADD = $(CAIRN_LIBS)
+EXTRA_DIST += tests/bench/qubit_bench.sh
+BENCH_TARGETS += bench-qubit
+bench-qubit: tests/bench/qubit_bench$(EXEEXT)
+	$(SHELL) $(srcdir)/tests/bench/qubit_bench.sh $(abs_top_builddir) $(PYTHON)
