@@ -8,6 +8,8 @@ build=${1:-.}
 python=${2:-/usr/bin/python3}
 tmp=$(mktemp -d)
 trap 'rm -rf "$tmp"' EXIT
+build=$(cd "$build" && pwd)
+cd "$tmp" # psi4 leaves scratch files in the working directory
 if "$python" - "$tmp/n2.fcidump" <<'PY'
 import sys
 sys.path.insert(0, "/usr/lib/x86_64-linux-gnu")

@@ -52,6 +52,7 @@ def psi4_run(geometry, basis, tmpdir, name, fci=True, frozen_docc=None, frozen_u
     """SCF (and FCI) with psi4, live; writes NAME.fcidump.  Returns
     (path, e_scf, e_fci or None).  Options as REFERENCES.md prescribes."""
     psi4 = psi4_module()
+    os.chdir(tmpdir)  # psi4 leaves scratch files (timer.dat) in the working directory
     psi4.core.clean()
     psi4.core.clean_options()
     psi4.core.set_output_file(os.path.join(tmpdir, name + ".out"), False)
