@@ -85,6 +85,9 @@ static void test_wide_words(void **state) {
   assert_int_equal(k, 0); /* (-i)(i) = 1 */
   assert_int_equal(pauli_word_weight(nw, x1, z1), 4);
   assert_int_equal(pauli_word_ycount(nw, x1, z1), 1);
+  int sup[4];
+  assert_int_equal(pauli_word_support(nw, x1, z1, sup), 4);
+  assert_true(sup[0] == 0 && sup[1] == 63 && sup[2] == 64 && sup[3] == 129);
 }
 
 static void test_parse_errors(void **state) {
