@@ -76,6 +76,7 @@ struct sv_op {
   op_pat *pat;
   op_term *term;
   double *tau;            /* sv_sign_table() */
+  int real;               /* every merged coefficient is real: h(i) is real */
 };
 
 double *sv_sign_table(void) {
@@ -221,6 +222,9 @@ sv_op *sv_op_new(const pauli_sum *s, char *err, size_t errlen) {
   }
   free(t);
   op->tau = sv_sign_table();
+  op->real = 1;
+  for (size_t k = 0; k < op->nmerged; k++)
+    if (op->term[k].ei != 0) op->real = 0;
   return op;
 }
 
@@ -245,6 +249,30 @@ uint64_t sv_op_bytes(const sv_op *op) {
   return b;
 }
 
+/* Real h (op->real) over the block into hr[0..B); 0 when it vanishes. */
+static int block_h_real(const sv_op *op, const op_sub *s, uint64_t base, unsigned B, double *restrict hr) {
+  int any = 0;
+  for (uint32_t k = s->pfirst; k < s->pfirst + s->np; k++) {
+    const op_pat *p = &op->pat[k];
+    double ar = 0;
+    for (uint32_t t = p->tfirst; t < p->tfirst + p->nt; t++) {
+      const op_term *m = &op->term[t];
+      ar += sv_parity(base & m->zhi) ? -m->er : m->er;
+    }
+    if (ar == 0) continue;
+    const double *restrict row = op->tau + (size_t)p->u * 64;
+    if (!any) {
+#pragma omp simd
+      for (unsigned l = 0; l < B; l++) hr[l] = ar * row[l];
+      any = 1;
+    } else {
+#pragma omp simd
+      for (unsigned l = 0; l < B; l++) hr[l] += ar * row[l];
+    }
+  }
+  return any;
+}
+
 /* h over the block at `base` of sub-cube s into (hr, hi)[0..B).  Returns 0
  * when every merged coefficient's sum vanishes there (nothing written). */
 static int block_h(const sv_op *op, const op_sub *s, uint64_t base, unsigned B, double *restrict hr,
@@ -266,12 +294,14 @@ static int block_h(const sv_op *op, const op_sub *s, uint64_t base, unsigned B, 
     if (ar == 0 && ai == 0) continue;
     const double *restrict row = op->tau + (size_t)p->u * 64;
     if (!any) {
+#pragma omp simd
       for (unsigned l = 0; l < B; l++) {
         hr[l] = ar * row[l];
         hi[l] = ai * row[l];
       }
       any = 1;
     } else {
+#pragma omp simd
       for (unsigned l = 0; l < B; l++) {
         hr[l] += ar * row[l];
         hi[l] += ai * row[l];
@@ -289,62 +319,77 @@ typedef struct blk {
   uint64_t base, jb;
 } blk;
 
-/* o += y (apply) */
+/* o_i += k tau_row[l] psi_j (apply), k = kr + i ki */
 static void rows_apply1(const blk *b, double kr, double ki, const double *restrict row, const double *restrict v,
                         double *restrict o) {
-  if (ki == 0) {
+  const sv_v2 *vv = (const sv_v2 *)v;
+  sv_v2 *vo = (sv_v2 *)o;
+  if (ki == 0 && b->xlo == 0) { /* the common case: x inside the split bits */
+    const sv_v2 *vj = vv + b->jb;
+    sv_v2 *oi = vo + b->base;
+#pragma GCC unroll 4
+    for (unsigned l = 0; l < b->B; l++) oi[b->off[l]] += (kr * row[l]) * vj[b->off[l]];
+  } else if (ki == 0) {
     for (unsigned l = 0; l < b->B; l++) {
       uint64_t i = b->base | b->off[l], j = b->jb | b->off[l ^ b->xlo];
-      double t = kr * row[l];
-      o[2 * i] += t * v[2 * j];
-      o[2 * i + 1] += t * v[2 * j + 1];
+      vo[i] += (kr * row[l]) * vv[j];
     }
   } else {
+    const sv_v2 K1 = {kr, kr}, K2 = {-ki, ki};
     for (unsigned l = 0; l < b->B; l++) {
       uint64_t i = b->base | b->off[l], j = b->jb | b->off[l ^ b->xlo];
-      double tr = kr * row[l], ti = ki * row[l], pr = v[2 * j], pi = v[2 * j + 1];
-      o[2 * i] += tr * pr - ti * pi;
-      o[2 * i + 1] += tr * pi + ti * pr;
+      sv_v2 p = vv[j];
+      vo[i] += row[l] * (K1 * p + K2 * sv_swap(p));
     }
   }
 }
 
-/* returns sum conj(psi_i) y */
+/* sum over the block of conj(psi_i) k tau_row[l] psi_j */
 static double complex rows_expect1(const blk *b, double kr, double ki, const double *restrict row,
                                    const double *restrict v) {
-  double re = 0, im = 0;
+  const sv_v2 *vv = (const sv_v2 *)v;
+  sv_v2 a1 = {0, 0}, a2 = {0, 0};
   for (unsigned l = 0; l < b->B; l++) {
     uint64_t i = b->base | b->off[l], j = b->jb | b->off[l ^ b->xlo];
-    double ur = v[2 * i], ui = v[2 * i + 1], pr = v[2 * j], pi = v[2 * j + 1];
-    double t = row[l];
-    re += t * (ur * pr + ui * pi); /* conj(u) p, times the sign */
-    im += t * (ur * pi - ui * pr);
+    sv_v2 u = row[l] * vv[i], p = vv[j];
+    a1 += u * p;          /* (ur pr, ui pi) */
+    a2 += u * sv_swap(p); /* (ur pi, ui pr) */
   }
-  /* times k */
+  double re = a1[0] + a1[1], im = a2[0] - a2[1]; /* conj(u) p */
   return CMPLX(kr * re - ki * im, kr * im + ki * re);
 }
 
 static void rows_apply(const blk *b, const double *restrict hr, const double *restrict hi, const double *restrict v,
                        double *restrict o) {
+  const sv_v2 *vv = (const sv_v2 *)v;
+  sv_v2 *vo = (sv_v2 *)o;
+  const sv_v2 sg = {-1, 1};
+  if (!hi) {
+    for (unsigned l = 0; l < b->B; l++) {
+      uint64_t i = b->base | b->off[l], j = b->jb | b->off[l ^ b->xlo];
+      vo[i] += hr[l] * vv[j];
+    }
+    return;
+  }
   for (unsigned l = 0; l < b->B; l++) {
     uint64_t i = b->base | b->off[l], j = b->jb | b->off[l ^ b->xlo];
-    double pr = v[2 * j], pi = v[2 * j + 1];
-    o[2 * i] += hr[l] * pr - hi[l] * pi;
-    o[2 * i + 1] += hr[l] * pi + hi[l] * pr;
+    sv_v2 p = vv[j];
+    vo[i] += hr[l] * p + hi[l] * (sg * sv_swap(p));
   }
 }
 
 static double complex rows_expect(const blk *b, const double *restrict hr, const double *restrict hi,
                                   const double *restrict v) {
-  double re = 0, im = 0;
+  const sv_v2 *vv = (const sv_v2 *)v;
+  const sv_v2 sg = {-1, 1};
+  sv_v2 a1 = {0, 0}, a2 = {0, 0};
   for (unsigned l = 0; l < b->B; l++) {
     uint64_t i = b->base | b->off[l], j = b->jb | b->off[l ^ b->xlo];
-    double ur = v[2 * i], ui = v[2 * i + 1], pr = v[2 * j], pi = v[2 * j + 1];
-    double yr = hr[l] * pr - hi[l] * pi, yi = hr[l] * pi + hi[l] * pr;
-    re += ur * yr + ui * yi;
-    im += ur * yi - ui * yr;
+    sv_v2 p = vv[j], y = hr[l] * p + (hi ? hi[l] : 0.0) * (sg * sv_swap(p)), u = vv[i];
+    a1 += u * y;
+    a2 += u * sv_swap(y);
   }
-  return CMPLX(re, im);
+  return CMPLX(a1[0] + a1[1], a2[0] - a2[1]);
 }
 
 /* One chunk (rows whose top bits are c): adds op psi into o (when o is set)
@@ -380,9 +425,10 @@ static double complex op_chunk(const sv_op *op, const double *restrict v, double
       do {
         b.base = base0 | m;
         b.jb = b.base ^ g->xhi;
-        if (block_h(op, s, b.base, b.B, hr, hi)) {
-          if (o) rows_apply(&b, hr, hi, v, o);
-          else acc += rows_expect(&b, hr, hi, v);
+        if (op->real ? block_h_real(op, s, b.base, b.B, hr) : block_h(op, s, b.base, b.B, hr, hi)) {
+          const double *h2 = op->real ? NULL : hi;
+          if (o) rows_apply(&b, hr, h2, v, o);
+          else acc += rows_expect(&b, hr, h2, v);
         }
         m = (m - mid) & mid;
       } while (m);

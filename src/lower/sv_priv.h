@@ -23,6 +23,13 @@ static inline uint64_t sv_insert0(uint64_t k, int p) {
 /* Highest set bit of v != 0. */
 static inline int sv_top_bit(uint64_t v) { return 63 - __builtin_clzll(v); }
 
+/* One complex amplitude as a two-lane vector (GCC/clang vector extension:
+ * SSE2 on x86-64, NEON on arm64); may alias the doubles of the vectors. */
+typedef double sv_v2 __attribute__((vector_size(16), may_alias));
+typedef long long sv_v2i __attribute__((vector_size(16)));
+/* (re, im) -> (im, re) */
+static inline sv_v2 sv_swap(sv_v2 a) { return __builtin_shuffle(a, (sv_v2i){1, 0}); }
+
 /* Software pdep / pext on masks (compile-time tables only). */
 static inline uint64_t sv_deposit(uint64_t v, uint64_t mask) {
   uint64_t r = 0;

@@ -32,6 +32,12 @@ static double median(double *t, int n) {
   return n % 2 ? t[n / 2] : 0.5 * (t[n / 2 - 1] + t[n / 2]);
 }
 
+static double minimum(const double *t, int n) {
+  double m = t[0];
+  for (int k = 1; k < n; k++) m = t[k] < m ? t[k] : m;
+  return m;
+}
+
 static int threads(void) {
 #ifdef _OPENMP
   return omp_get_max_threads();
@@ -143,9 +149,9 @@ static int bench_evalgrad(const char *path, int reps) {
   }
   printf("{\"qubits\": %d, \"threads\": %d, \"terms\": %zu, \"groups\": %zu, \"rotations\": %zu, \"params\": %d, "
          "\"repeats\": %d, \"energy\": %.17g, \"evalgrad_seconds\": %.6g, \"energy_seconds\": %.6g, "
-         "\"apply_seconds\": %.6g, \"gradient\": [",
+         "\"apply_seconds\": %.6g, \"evalgrad_min\": %.6g, \"apply_min\": %.6g, \"gradient\": [",
          c.nqubits, threads(), sv_op_terms(op), sv_op_groups(op), c.nrot, np, reps, E, median(t, reps),
-         median(t2, reps), median(t3, reps));
+         median(t2, reps), median(t3, reps), minimum(t, reps), minimum(t3, reps));
   for (int p = 0; p < np; p++) printf("%s%.17g", p ? ", " : "", grad[p]);
   printf("]}\n");
   sv_state_free(&out);
