@@ -1,2 +1,35 @@
 ## chemistry: basis sets, integrals, SCF, transforms, FCIDUMP, MP2, CCSD, FCI
-libcairn_a_SOURCES += src/chem/element.c
+libcairn_a_SOURCES += src/chem/element.c src/chem/chem.c src/chem/chem_util.c src/chem/chem_private.h \
+	src/chem/basis.c src/chem/fcidump.c \
+	include/cairn/basis.h include/cairn/fcidump.h
+nodist_libcairn_a_SOURCES = src/chem/basis_data.c
+
+## The shipped basis sets: embedded into the binary (a generated C source) so
+## cairn works from the build tree, and installed for users to read and copy.
+CHEM_BASIS_FILES = data/basis/sto-3g.gbs data/basis/6-31g.gbs data/basis/6-31gs.gbs data/basis/cc-pvdz.gbs
+chembasisdir = $(pkgdatadir)/basis
+dist_chembasis_DATA = $(CHEM_BASIS_FILES)
+EXTRA_DIST += src/chem/basis-extract.py
+CLEANFILES += src/chem/basis_data.c
+src/chem/basis_data.c: $(CHEM_BASIS_FILES) $(srcdir)/src/chem/local.mk
+	$(AM_V_GEN)$(MKDIR_P) src/chem && { \
+	  echo '/* Generated from the files in data/basis by a rule in src/chem/local.mk: do not edit. */'; \
+	  echo '#include "config.h"'; \
+	  echo '#include "chem/chem_private.h"'; \
+	  echo 'const chem_basis_text chem_basis_texts[] = {'; \
+	  for f in $(CHEM_BASIS_FILES); do \
+	    n=`basename $$f .gbs | sed 's/^6-31gs$$/6-31g*/'`; \
+	    echo "  {\"$$n\","; \
+	    sed -e 's/\\/\\\\/g' -e 's/"/\\"/g' -e 's/^/   "/' -e 's/$$/\\n"/' $(srcdir)/$$f; \
+	    echo '  },'; \
+	  done; \
+	  echo '};'; \
+	  echo 'const int chem_basis_ntexts = (int)(sizeof chem_basis_texts / sizeof chem_basis_texts[0]);'; \
+	} > $@-t && mv $@-t $@
+
+## unit tests
+check_PROGRAMS += tests/unit/test_chem_io
+UNIT_TESTS += tests/unit/test_chem_io
+tests_unit_test_chem_io_SOURCES = tests/unit/test_chem_io.c
+tests_unit_test_chem_io_CFLAGS = $(UNIT_CFLAGS)
+tests_unit_test_chem_io_LDADD = $(UNIT_LDADD)

@@ -10,6 +10,9 @@
 #include <cmocka.h>
 
 #include "cairn/pauli.h"
+#include "cairn/util.h"
+
+#include <complex.h>
 
 static void word1(char L, uint64_t *x, uint64_t *z) {
   x[0] = z[0] = 0;
@@ -151,11 +154,94 @@ static void test_sums(void **state) {
   pauli_sum_free(&c);
 }
 
+
+/* The radix-sorted canonical form agrees with pauli_word_cmp at widths around
+ * the 32- and 64-qubit boundaries, keeps every word exactly and sums repeats
+ * in arrival order (compared with a naive quadratic merge). */
+static void test_canonical_order(void **state) {
+  (void)state;
+  const int widths[] = {1, 2, 5, 31, 32, 33, 63, 64, 65, 100, 130, 200};
+  util_rng r;
+  util_rng_seed(&r, 42);
+  for (size_t wi = 0; wi < sizeof widths / sizeof widths[0]; wi++) {
+    int n = widths[wi], nw = pauli_nwords(n);
+    pauli_sum s, ref;
+    pauli_sum_init(&s, n);
+    pauli_sum_init(&ref, n);
+    uint64_t *x = calloc((size_t)nw, 8), *z = calloc((size_t)nw, 8);
+    int nterms = 400;
+    for (int t = 0; t < nterms; t++) {
+      memset(x, 0, (size_t)nw * 8);
+      memset(z, 0, (size_t)nw * 8);
+      int dens = (int)(util_rng_next(&r) % 4); /* sparse to dense words */
+      for (int q = 0; q < n; q++)
+        if ((int)(util_rng_next(&r) % 8) <= dens) pauli_set_letter(x, z, q, "XYZ"[util_rng_next(&r) % 3]);
+      /* repeat an earlier word now and then */
+      if (t > 0 && util_rng_next(&r) % 5 == 0) {
+        size_t k = util_rng_next(&r) % s.len;
+        memcpy(x, pauli_sum_x(&s, k), (size_t)nw * 8);
+        memcpy(z, pauli_sum_z(&s, k), (size_t)nw * 8);
+      }
+      double complex c = (double)(util_rng_next(&r) % 7) - 3.0 + I * (double)(util_rng_next(&r) % 3);
+      pauli_sum_add(&s, x, z, c);
+      /* naive merge */
+      size_t k = 0;
+      for (; k < ref.len; k++)
+        if (pauli_word_equal(nw, pauli_sum_x(&ref, k), pauli_sum_z(&ref, k), x, z)) break;
+      if (k < ref.len) ref.c[k] += c;
+      else pauli_sum_add(&ref, x, z, c);
+    }
+    pauli_sum_canonicalize(&s, 0.0);
+    size_t nonzero = 0;
+    for (size_t k = 0; k < ref.len; k++) {
+      if (ref.c[k] == 0) continue;
+      nonzero++;
+      long i = pauli_sum_find(&s, pauli_sum_x(&ref, k), pauli_sum_z(&ref, k));
+      assert_true(i >= 0);
+      assert_true(s.c[i] == ref.c[k]);
+    }
+    assert_int_equal(s.len, nonzero);
+    for (size_t i = 1; i < s.len; i++)
+      assert_true(pauli_word_cmp(nw, pauli_sum_x(&s, i - 1), pauli_sum_z(&s, i - 1), pauli_sum_x(&s, i),
+                                 pauli_sum_z(&s, i)) < 0);
+    free(x);
+    free(z);
+    pauli_sum_free(&s);
+    pauli_sum_free(&ref);
+  }
+}
+
+/* The messages the front end shows at a recipe's `word` span. */
+static void test_parse_messages(void **state) {
+  (void)state;
+  uint64_t x[2], z[2];
+  char err[160];
+  size_t off = 0;
+  assert_int_equal(pauli_word_parse("X0 Q1", 8, x, z, err, sizeof err, &off), -1);
+  assert_string_equal(err, "`Q1` is not a Pauli letter with a qubit (X, Y or Z and a number)");
+  assert_int_equal(off, 3);
+  assert_int_equal(pauli_word_parse("X0 Y3 Z3", 8, x, z, err, sizeof err, &off), -1);
+  assert_string_equal(err, "qubit 3 appears twice");
+  assert_int_equal(off, 6);
+  assert_int_equal(pauli_word_parse("X0 Z8", 8, x, z, err, sizeof err, &off), -1);
+  assert_string_equal(err, "qubit 8 is beyond the register (qubits 0..7)");
+  assert_int_equal(off, 3);
+  assert_int_equal(pauli_word_parse("XQZ", 8, x, z, err, sizeof err, &off), -1);
+  assert_int_equal(off, 1);
+  assert_int_equal(pauli_word_parse("X1x", 8, x, z, err, sizeof err, &off), -1);
+  /* 100-qubit register: sparse text round trip */
+  assert_int_equal(pauli_word_parse("Z99 X0 Y64", 100, x, z, err, sizeof err, &off), 0);
+  char *t = pauli_word_str(100, x, z);
+  assert_string_equal(t, "X0 Y64 Z99");
+  free(t);
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_single_qubit_table), cmocka_unit_test(test_enumerate_words),
       cmocka_unit_test(test_wide_words),         cmocka_unit_test(test_parse_errors),
-      cmocka_unit_test(test_sums),
+      cmocka_unit_test(test_sums),               cmocka_unit_test(test_canonical_order),
+      cmocka_unit_test(test_parse_messages),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }
