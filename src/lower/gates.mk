@@ -3,3 +3,10 @@ libcairn_a_SOURCES += include/cairn/gates.h src/lower/gate_int.h src/lower/emit_
 	src/lower/gate_lower.c src/lower/gate_short.c src/lower/pass_cancel.c src/lower/gate_count.c \
 	src/lower/gate_bind.c src/lower/gate_diff.c \
 	src/lower/emit.c src/lower/emit_listing.c src/lower/emit_qasm.c
+
+## reference checks: a C driver over the JSON rotation program, checked by numpy
+check_PROGRAMS += tests/ref/gates_driver
+tests_ref_gates_driver_SOURCES = tests/ref/gates_driver.c
+tests_ref_gates_driver_LDADD = $(CAIRN_LIBS)
+TESTS += tests/ref/gates_sim.py
+EXTRA_DIST += tests/ref/gates_sim.py
