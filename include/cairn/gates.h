@@ -112,7 +112,7 @@ typedef struct gate_opts {
 } gate_opts;
 
 /* Gates the cancellation pass may look back over. */
-enum { GATE_PASS_WINDOW = 1 << 20 };
+enum { GATE_PASS_WINDOW = 1 << 18 };
 
 /* chain ladder, passes on, no short circuits */
 void gate_opts_default(gate_opts *o);

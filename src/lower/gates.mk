@@ -10,3 +10,9 @@ tests_ref_gates_driver_SOURCES = tests/ref/gates_driver.c
 tests_ref_gates_driver_LDADD = $(CAIRN_LIBS)
 TESTS += tests/ref/gates_sim.py
 EXTRA_DIST += tests/ref/gates_sim.py
+
+check_PROGRAMS += tests/unit/test_gates
+UNIT_TESTS += tests/unit/test_gates
+tests_unit_test_gates_SOURCES = tests/unit/test_gates.c
+tests_unit_test_gates_CFLAGS = $(UNIT_CFLAGS)
+tests_unit_test_gates_LDADD = $(UNIT_LDADD)
