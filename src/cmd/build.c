@@ -141,7 +141,11 @@ static void print_counts(FILE *f, const char *src, const ans_circuit *c, const g
           k->cx_depth);
   fprintf(f, "plain cx (sum of 2(w-1) over the words): %ld\n", gate_plain_cx(c, -2));
   fprintf(f, "%6s  %-12s %8s %8s  %s\n", "gen", "kind", "cx", "single", "generator");
-  if (k->ref_single || c->nref_params) fprintf(f, "%6s  %-12s %8d %8ld  %s\n", "ref", "reference", 0, k->ref_single, "");
+  if (k->ref_single || c->nref_params) {
+    fprintf(f, "%6s  %-12s %8d %8ld  basis state ", "ref", "reference", 0, k->ref_single);
+    for (int q = 0; q < c->nqubits; q++) fputc(pauli_get_x(c->init, q) ? '1' : '0', f);
+    fprintf(f, "%s\n", c->nref_params ? " and mean-field rotations" : "");
+  }
   for (int g = 0; g < c->ngens; g++)
     fprintf(f, "%6d  %-12s %8ld %8ld  %s\n", g, ans_kind_name(c->gens[g].kind), k->gen_cx[g], k->gen_single[g],
             c->gens[g].text ? c->gens[g].text : "");

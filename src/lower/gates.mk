@@ -16,3 +16,11 @@ UNIT_TESTS += tests/unit/test_gates
 tests_unit_test_gates_SOURCES = tests/unit/test_gates.c
 tests_unit_test_gates_CFLAGS = $(UNIT_CFLAGS)
 tests_unit_test_gates_LDADD = $(UNIT_LDADD)
+
+## golden listings and the build command (shell checks)
+TESTS += tests/ref/gates_golden.sh tests/ref/gates_build.sh
+EXTRA_DIST += tests/ref/gates_golden.sh tests/ref/gates_build.sh \
+	tests/golden/listing/h2-uccsd.json tests/golden/listing/qcc-meanfield.json \
+	tests/golden/listing/h2-uccsd.gates tests/golden/listing/h2-uccsd.short.gates \
+	tests/golden/listing/h2-uccsd.plain.gates tests/golden/listing/qcc-meanfield.gates \
+	tests/golden/listing/qcc-meanfield.tree.gates
