@@ -18,8 +18,8 @@ void emit_flush(emit_ctx *e) {
   e->n = 0;
 }
 
-void emit_mem(emit_ctx *e, const char *s, size_t n) {
-  if (e->n + n > EMIT_BUF) emit_flush(e);
+void emit_mem_big(emit_ctx *e, const char *s, size_t n) {
+  emit_flush(e);
   if (n > EMIT_BUF) {
     if (!e->err && fwrite(s, 1, n, e->f) != n) e->err = errno ? errno : EIO;
     e->bytes += n;
@@ -30,6 +30,28 @@ void emit_mem(emit_ctx *e, const char *s, size_t n) {
 }
 
 void emit_str(emit_ctx *e, const char *s) { emit_mem(e, s, strlen(s)); }
+
+void emit_op(emit_ctx *e, int op) {
+  /* ORDER gate_op */
+  static const char names[][5] = {"x", "h", "s", "sdg", "rx", "ry", "rz", "cx", "mark"};
+  static const unsigned char lens[] = {1, 1, 1, 3, 2, 2, 2, 2, 4};
+  if ((unsigned)op >= sizeof lens) return;
+  emit_mem(e, names[op], lens[op]);
+}
+
+/* Spell every qubit once: "q<k>", or "q[<k>]" when bracketed. */
+static void spell_qubits(emit_ctx *e, int n, int bracket) {
+  e->qoff = xmalloc((size_t)(n > 0 ? n : 1) * sizeof *e->qoff);
+  e->qlen = xmalloc((size_t)(n > 0 ? n : 1));
+  e->qtxt = xmalloc((size_t)(n > 0 ? n : 1) * 16);
+  size_t at = 0;
+  for (int q = 0; q < n; q++) {
+    int len = snprintf(e->qtxt + at, 16, bracket ? "q[%d]" : "q%d", q);
+    e->qoff[q] = (uint32_t)at;
+    e->qlen[q] = (uint8_t)len;
+    at += (size_t)len;
+  }
+}
 
 void emit_long(emit_ctx *e, long v) {
   char t[24];
@@ -77,19 +99,21 @@ static void spell(char *out, double x, int qasm) {
   }
 }
 
-static const char *cached(emit_ctx *e, double x) {
+/* Spelling of x as a multiplier (kind 0) or as a fixed angle (kind 1, k pi / d
+ * where it is one), through a direct-mapped cache. */
+static const char *cached(emit_ctx *e, double x, int kind) {
   uint64_t bits;
   memcpy(&bits, &x, sizeof bits);
   size_t h = (size_t)((bits * 0x9E3779B97F4A7C15ULL) >> 56) & (EMIT_CACHE - 1);
-  if (!e->cache_used[h] || memcmp(&e->cache_key[h], &x, sizeof x) != 0) {
-    spell(e->cache_txt[h], x, e->qasm);
-    e->cache_key[h] = x;
-    e->cache_used[h] = 1;
+  if (!e->cache_used[kind][h] || memcmp(&e->cache_key[kind][h], &x, sizeof x) != 0) {
+    if (!kind || !gate_pi_spelling(e->cache_txt[kind][h], x)) spell(e->cache_txt[kind][h], x, e->qasm);
+    e->cache_key[kind][h] = x;
+    e->cache_used[kind][h] = 1;
   }
-  return e->cache_txt[h];
+  return e->cache_txt[kind][h];
 }
 
-void emit_number(emit_ctx *e, double x) { emit_str(e, cached(e, x)); }
+void emit_number(emit_ctx *e, double x) { emit_str(e, cached(e, x, 0)); }
 
 int gate_pi_spelling(char *buf, double a) {
   if (a == 0) {
@@ -118,9 +142,7 @@ int gate_pi_spelling(char *buf, double a) {
 
 void emit_angle(emit_ctx *e, const gate *g, const char *prefix) {
   if (g->param < 0) {
-    char t[40];
-    if (gate_pi_spelling(t, g->mult)) emit_str(e, t);
-    else emit_number(e, g->mult);
+    emit_str(e, cached(e, g->mult, 1));
     return;
   }
   if (g->mult == -1) emit_ch(e, '-');
@@ -221,6 +243,7 @@ int gate_write(FILE *f, gate_format fmt, const ans_circuit *c, const gate_opts *
   e->f = f;
   e->step = -1;
   e->qasm = fmt != GATE_FMT_LISTING;
+  spell_qubits(e, c->nqubits, fmt == GATE_FMT_QASM3);
   e->fmt->header(e);
   gate_stream(c, o, &e->sink);
   e->fmt->footer(e);
@@ -228,6 +251,9 @@ int gate_write(FILE *f, gate_format fmt, const ans_circuit *c, const gate_opts *
   if (!e->err && fflush(f) != 0) e->err = errno ? errno : EIO;
   int err = e->err;
   if (bytes) *bytes = e->bytes;
+  free(e->qtxt);
+  free(e->qoff);
+  free(e->qlen);
   free(e);
   gate_counter_free(&cnt);
   if (counts) *counts = k;

@@ -13,6 +13,8 @@
 
 #include "lower/gate_int.h"
 
+#include <string.h>
+
 typedef struct emit_ctx emit_ctx;
 
 typedef struct emit_fmt {
@@ -42,10 +44,14 @@ struct emit_ctx {
   long run;           /* marks seen so far */
   int step;           /* Trotter step shown last (-1 none) */
   int qasm;           /* number spelling: 1 for OpenQASM literals */
+  /* each qubit spelled once ("q12", or "q[12]" at OpenQASM 3.0 top level) */
+  char *qtxt;
+  uint32_t *qoff;
+  uint8_t *qlen;
   /* spelled multipliers: a direct-mapped cache (output never depends on it) */
-  double cache_key[EMIT_CACHE];
-  char cache_txt[EMIT_CACHE][40];
-  unsigned char cache_used[EMIT_CACHE];
+  double cache_key[2][EMIT_CACHE];     /* [0] multipliers, [1] fixed angles */
+  char cache_txt[2][EMIT_CACHE][40];
+  unsigned char cache_used[2][EMIT_CACHE];
 };
 
 void emit_flush(emit_ctx *e);
@@ -54,7 +60,24 @@ static inline void emit_ch(emit_ctx *e, char ch) {
   e->buf[e->n++] = ch;
 }
 void emit_str(emit_ctx *e, const char *s);
-void emit_mem(emit_ctx *e, const char *s, size_t n);
+/* The spelled name of qubit q, and of a gate (no length computations on the
+ * path every gate takes). */
+static inline void emit_qubit(emit_ctx *e, int q) {
+  size_t n = e->qlen[q];
+  if (e->n + n > EMIT_BUF) emit_flush(e);
+  memcpy(e->buf + e->n, e->qtxt + e->qoff[q], n);
+  e->n += n;
+}
+void emit_op(emit_ctx *e, int op);
+void emit_mem_big(emit_ctx *e, const char *s, size_t n);
+static inline void emit_mem(emit_ctx *e, const char *s, size_t n) {
+  if (e->n + n > EMIT_BUF) {
+    emit_mem_big(e, s, n);
+    return;
+  }
+  memcpy(e->buf + e->n, s, n);
+  e->n += n;
+}
 void emit_long(emit_ctx *e, long v);
 void emit_printf(emit_ctx *e, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
 /* A number: shortest round-trip spelling; in OpenQASM mode a mantissa with

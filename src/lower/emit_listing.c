@@ -51,12 +51,12 @@ static void mark(emit_ctx *e, const gate *g, long run) {
 }
 
 static void put_gate(emit_ctx *e, const gate *g) {
-  emit_str(e, gate_op_name((gate_op)g->op));
-  emit_str(e, " q");
-  emit_long(e, g->q0);
+  emit_op(e, g->op);
+  emit_ch(e, ' ');
+  emit_qubit(e, g->q0);
   if (g->op == GATE_CX) {
-    emit_str(e, " q");
-    emit_long(e, g->q1);
+    emit_ch(e, ' ');
+    emit_qubit(e, g->q1);
   } else if (gate_is_rotation(g->op)) {
     emit_ch(e, ' ');
     emit_angle(e, g, "t");

@@ -66,20 +66,20 @@ static void header2(emit_ctx *e) {
 static void mark2(emit_ctx *e, const gate *g, long run) { mark(e, g, run, "  "); }
 
 static void gate2(emit_ctx *e, const gate *g) {
-  emit_str(e, "  ");
-  emit_str(e, gate_op_name((gate_op)g->op));
+  emit_mem(e, "  ", 2);
+  emit_op(e, g->op);
   if (gate_is_rotation(g->op)) {
     emit_ch(e, '(');
     emit_angle(e, g, "theta_");
     emit_ch(e, ')');
   }
-  emit_str(e, " q");
-  emit_long(e, g->q0);
+  emit_ch(e, ' ');
+  emit_qubit(e, g->q0);
   if (g->op == GATE_CX) {
-    emit_str(e, ",q");
-    emit_long(e, g->q1);
+    emit_ch(e, ',');
+    emit_qubit(e, g->q1);
   }
-  emit_str(e, ";\n");
+  emit_mem(e, ";\n", 2);
 }
 
 static void footer2(emit_ctx *e) {
@@ -140,19 +140,19 @@ static void header3(emit_ctx *e) {
 static void mark3(emit_ctx *e, const gate *g, long run) { mark(e, g, run, ""); }
 
 static void gate3(emit_ctx *e, const gate *g) {
-  emit_str(e, gate_op_name((gate_op)g->op));
+  emit_op(e, g->op);
   if (gate_is_rotation(g->op)) {
     emit_ch(e, '(');
     emit_angle(e, g, "theta_");
     emit_ch(e, ')');
   }
-  emit_str(e, " q[");
-  emit_long(e, g->q0);
+  emit_ch(e, ' ');
+  emit_qubit(e, g->q0);
   if (g->op == GATE_CX) {
-    emit_str(e, "], q[");
-    emit_long(e, g->q1);
+    emit_mem(e, ", ", 2);
+    emit_qubit(e, g->q1);
   }
-  emit_str(e, "];\n");
+  emit_mem(e, ";\n", 2);
 }
 
 static void footer3(emit_ctx *e) { (void)e; }

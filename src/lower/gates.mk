@@ -24,3 +24,10 @@ EXTRA_DIST += tests/ref/gates_golden.sh tests/ref/gates_build.sh \
 	tests/golden/listing/h2-uccsd.gates tests/golden/listing/h2-uccsd.short.gates \
 	tests/golden/listing/h2-uccsd.plain.gates tests/golden/listing/qcc-meanfield.gates \
 	tests/golden/listing/qcc-meanfield.tree.gates
+
+## benchmark (make bench): the 100-qubit UCCSD pool to listing and OpenQASM 3
+noinst_PROGRAMS += tests/bench/gates_bench
+tests_bench_gates_bench_SOURCES = tests/bench/gates_bench.c
+tests_bench_gates_bench_LDADD = $(CAIRN_LIBS)
+bench-gates: tests/bench/gates_bench$(EXEEXT)
+	./tests/bench/gates_bench$(EXEEXT)
