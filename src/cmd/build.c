@@ -11,6 +11,8 @@
 
 #include "cmd/cmd.h"
 
+#include "cairn/diag.h"
+#include "cairn/front.h"
 #include "cairn/gates.h"
 #include "cairn/ir.h"
 #include "cairn/json.h"
@@ -170,20 +172,18 @@ static cJSON *counts_json(const char *src, const ans_circuit *c, const gate_coun
   return o;
 }
 
-/* Wiring point for the recipe pipeline (recipe -> IR -> chemistry ->
- * Hamiltonian -> generators -> rotation program): fills c and the recipe's
- * emit statements.  Until the pipeline is part of the build, a recipe cannot
- * be lowered here and the command says so. */
-static int recipe_circuit(const cmd_env *env, const char *path, ans_circuit *c, const ir_emit **emits,
-                          int *nemits) {
-  (void)env;
+/* Wiring point for the recipe pipeline: the checked recipe (point `point`
+ * of a scan) to its rotation program (chemistry -> Hamiltonian -> generators
+ * -> screening and order).  Until the generator stage is part of the build, a
+ * recipe cannot be lowered here and the command says so. */
+static int recipe_circuit(const ir_recipe *r, int point, diag_ctx *d, ans_circuit *c) {
+  (void)point;
+  (void)d;
   (void)c;
-  *emits = NULL;
-  *nemits = 0;
   fprintf(stderr,
-          "cairn build: %s: lowering a recipe needs the recipe pipeline, which is not in this build yet; "
-          "lower a rotation program with --program FILE.json\n",
-          path);
+          "cairn build: %s: lowering a recipe needs the generator stage of the pipeline, which is not in this "
+          "build yet; lower a rotation program with --program FILE.json\n",
+          r->path);
   return 2;
 }
 
@@ -195,7 +195,25 @@ int cmd_build(const cmd_env *env, int argc, char **argv) {
   memset(&c, 0, sizeof c);
   const ir_emit *emits = NULL;
   int nemits = 0;
-  if (a.program) {
+  diag_ctx *d = NULL;
+  ir_recipe *recipe = NULL;
+  if (!a.program) {
+    d = diag_new(stderr, env->color);
+    diag_set_werror(d, env->werror);
+    recipe = front_load(d, a.file);
+    if (!recipe || diag_errors(d)) {
+      if (recipe) ir_recipe_free(recipe);
+      diag_free(d);
+      return 1;
+    }
+    if ((rc = recipe_circuit(recipe, a.point, d, &c)) != 0) {
+      ir_recipe_free(recipe);
+      diag_free(d);
+      return rc;
+    }
+    emits = recipe->emits;
+    nemits = recipe->nemits;
+  } else {
     cJSON *j = read_json_file(a.file, "rotation program");
     if (!j) return 2;
     char err[256];
@@ -206,20 +224,18 @@ int cmd_build(const cmd_env *env, int argc, char **argv) {
       ans_circuit_free(&c);
       return 2;
     }
-  } else if ((rc = recipe_circuit(env, a.file, &c, &emits, &nemits)) != 0) {
-    return rc;
-  }
-  if (c.nqubits < 1) {
-    fprintf(stderr, "cairn build: %s: the program has no qubits; there is nothing to lower\n", a.file);
-    ans_circuit_free(&c);
-    return 2;
   }
   double *values = NULL;
+  if (c.nqubits < 1) {
+    fprintf(stderr, "cairn build: %s: the program has no qubits; there is nothing to lower\n", a.file);
+    rc = 2;
+    goto done;
+  }
   if (a.bind) {
     cJSON *r = read_json_file(a.bind, "report");
     if (!r) {
-      ans_circuit_free(&c);
-      return 2;
+      rc = 2;
+      goto done;
     }
     char err[256];
     values = gate_bind_report(r, &c, a.point, err, sizeof err);
@@ -228,8 +244,8 @@ int cmd_build(const cmd_env *env, int argc, char **argv) {
     cJSON_Delete(r);
     if (!values) {
       fprintf(stderr, "cairn build: --bind %s: %s\n", a.bind, err);
-      ans_circuit_free(&c);
-      return 2;
+      rc = 2;
+      goto done;
     }
     if (npts > 1)
       fprintf(stderr, "cairn build: note: %s has %d points; bound the values of point %d (choose with --point K)\n",
@@ -260,7 +276,10 @@ int cmd_build(const cmd_env *env, int argc, char **argv) {
       rc = write_one(emits[i].path, f, &c, &a.opts, &meta, a.json ? stderr : say);
     }
   }
+done:
   free(values);
   ans_circuit_free(&c);
+  if (recipe) ir_recipe_free(recipe);
+  if (d) diag_free(d);
   return rc;
 }
