@@ -130,7 +130,8 @@ int gate_short_run(gate_lw *w, const ans_rotation *rot, size_t k, int write) {
       b &= b - 1;
     }
   }
-  long plain = (long)k * 2L * (nT + nS - 1);
+  /* plain cost: per word 2(w - 1) cx, 2 basis changes per X/Y letter and one rz */
+  long plain = (long)k * 2L * (nT + nS - 1), plain_single = (long)k * (2L * nT + 1);
   int32_t param = rot[0].param;
   if (nT == 2) {
     if (k != 2) return 0;
@@ -142,7 +143,9 @@ int gate_short_run(gate_lw *w, const ans_rotation *rot, size_t k, int write) {
       if (l0[i] == l1[i]) return 0; /* the words would anticommute or be equal */
     }
     long cost = nS ? 2L * nS + 4 : 2;
-    if (cost >= plain) return 0;
+    long single = 2 + (nS ? 2 : 0);
+    for (int i = 0; i < 2; i++) single += l0[i] == 'X' ? 2 : 4;
+    if (cost >= plain || cost + single > plain + plain_single) return 0;
     if (write) emit_single(w, T, l0, S, nS, param, rot[0].mult, rot[1].mult);
     return 1;
   }
@@ -175,7 +178,7 @@ int gate_short_run(gate_lw *w, const ans_rotation *rot, size_t k, int write) {
     }
   if (nz != 2 || u < 0 || hypot(re[u ^ 15], im[u ^ 15]) <= tol || fabs(re[u]) > tol) return 0;
   long cost = 14 + 2L * nS;
-  if (cost >= plain) return 0;
+  if (cost >= plain || cost + 8 > plain + plain_single) return 0;
   if (write) emit_double(w, T, u, S, nS, param, im[u]);
   return 1;
 }
