@@ -19,7 +19,7 @@ tests_unit_test_gates_LDADD = $(UNIT_LDADD)
 
 ## golden listings and the build command (shell checks)
 TESTS += tests/ref/gates_golden.sh tests/ref/gates_build.sh
-EXTRA_DIST += docs/listing.md tests/ref/gates_golden.sh tests/ref/gates_build.sh \
+EXTRA_DIST += docs/listing.md tests/bench/gates_acceptance.py tests/ref/gates_golden.sh tests/ref/gates_build.sh \
 	tests/golden/listing/h2-uccsd.json tests/golden/listing/qcc-meanfield.json \
 	tests/golden/listing/h2-uccsd.gates tests/golden/listing/h2-uccsd.short.gates \
 	tests/golden/listing/h2-uccsd.plain.gates tests/golden/listing/qcc-meanfield.gates \
