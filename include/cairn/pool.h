@@ -166,9 +166,17 @@ void ans_plan_free(ans_plan *pl);
  * of the ordered product with mult/trotter, parameters shared. */
 void ans_plan_circuit(const ans_plan *pl, const ir_recipe *r, ans_circuit *c);
 
+/* Type the chosen generators against every symmetry still untyped (plan
+ * building types only what `keep ... exactly` needs; tables want all). */
+void ans_plan_type(ans_plan *pl, const ans_problem *p);
+
 /* Gradient (i/2)<ref|[G, H]|ref> of the pool's generator k at a product state,
- * by closed forms over H's terms (no statevector). */
+ * by closed forms over H's terms (no statevector; builds the term index, so
+ * for many generators use ans_pool_screen). */
 double ans_gen_gradient(const ans_pool *pool, size_t k, const pauli_sum *H, const ans_reference *ref);
+/* The gradients of every generator of the pool at a product state ref: H's
+ * terms grouped by X-mask once (hash), then each word costs its group. */
+void ans_pool_screen(ans_pool *pool, const pauli_sum *H, const ans_reference *ref);
 
 /* Ordering key of a gradient: |g| quantized to 1e-12 Eh, so that gradients
  * equal up to rounding tie exactly and ties fall back to pool order (-1: NAN). */

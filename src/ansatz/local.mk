@@ -17,3 +17,4 @@ tests_ref_ans_driver_SOURCES = tests/ref/ans_driver.c
 tests_ref_ans_driver_LDADD = $(CAIRN_LIBS)
 TESTS += tests/ref/ans_gradients.py tests/ref/ans_doubles.py tests/ref/ans_symmetry.py
 EXTRA_DIST += tests/ref/ans_gradients.py tests/ref/ans_doubles.py tests/ref/ans_symmetry.py tests/ref/ans_common.py
+

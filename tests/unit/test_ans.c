@@ -189,6 +189,7 @@ static int fix_build(fix *f, const char *const *lines, int norb, int na, int nb,
   if (ans_setup_init(&f->s, &f->r, with_h ? &f->cs : NULL, f->d) != 0) return -1;
   f->built = 1;
   int rc = ans_plan_build(&f->pl, &f->r, &f->s.prob, f->d);
+  if (rc == 0) ans_plan_type(&f->pl, &f->s.prob);
   fflush(f->err);
   return rc;
 }
