@@ -1,6 +1,7 @@
 /* main.c — the cairn command line: global options, then one command. */
 #include "config.h"
 
+#include "cairn/help.h"
 #include "cmd/cmd.h"
 
 #include <stdarg.h>
@@ -81,7 +82,9 @@ static void print_help(FILE *f) {
           "  %-10s %s\n\n"
           "Simulations are noise-free statevector computations; energies are exact only\n"
           "within the recipe's basis set and active space.\n",
-          "help", "help on a command (cairn help COMMAND)");
+          "help", "help on a command or a word of the recipe language (cairn help TOPIC)");
+  fprintf(f, "\nhelp topics on the recipe language (cairn help TOPIC, or any keyword):\n");
+  help_list(f);
 }
 
 static int cmd_help(int argc, char **argv) {
@@ -92,9 +95,15 @@ static int cmd_help(int argc, char **argv) {
   const command *c = find(argv[1]);
   if (c) {
     fputs(c->usage, stdout);
+    /* a command that is also a word of the language (`integrals`) */
+    if (help_find(argv[1]) > 0) {
+      printf("\nIn recipes:\n\n");
+      help_topic(argv[1], stdout);
+    }
     return 0;
   }
-  fprintf(stderr, "cairn help: no help on `%s`; try `cairn --help`\n", argv[1]);
+  if (help_topic(argv[1], stdout) > 0) return 0;
+  fprintf(stderr, "cairn help: no help on `%s`; try `cairn help` for the list of topics\n", argv[1]);
   return 2;
 }
 
