@@ -141,7 +141,7 @@ static long append_gen(ans_build *b, const ans_gen_info *info, const pauli_sum *
   t->made++;
   for (int s = 0; s < IR_SYM_COUNT; s++) {
     if (!b->type_all[s]) continue;
-    double worst = ans_type_gen(b, k, s);
+    double worst = ans_type_gen(pool, k, b->p, s);
     int v = pool->gen[k].sig.sym[s];
     if (v == ANS_SIG_BREAKS) {
       if (t->breaks[s]++ == 0) t->first_break[s] = (long)k;
@@ -225,16 +225,24 @@ double ans_gen_gradient(const ans_pool *pool, size_t k, const pauli_sum *H, cons
   return v;
 }
 
-/* Gradients of every generator not screened yet: g = sum_k m_k g(P_k). */
-static void screen_pool(ans_pool *pool, const ans_screen *s) {
+/* Gradients of the generators (all, or those not screened yet):
+ * g = sum_k m_k g(P_k). */
+static void screen_pool(ans_pool *pool, const ans_screen *s, int all) {
   for (size_t k = 0; k < pool->len; k++) {
     ans_gen *g = &pool->gen[k];
-    if (!isnan(g->gradient)) continue;
+    if (!all && !isnan(g->gradient)) continue;
     double v = 0;
     for (size_t t = g->off; t < g->off + g->len; t++)
       v += creal(pool->words.c[t]) * ans_screen_word(s, pauli_sum_x(&pool->words, t), pauli_sum_z(&pool->words, t));
     g->gradient = v;
   }
+}
+
+void ans_pool_screen(ans_pool *pool, const pauli_sum *H, const ans_reference *ref) {
+  ans_screen s;
+  ans_screen_init(&s, H, ref);
+  screen_pool(pool, &s, 1);
+  ans_screen_free(&s);
 }
 
 int ans_plan_build(ans_plan *pl, const ir_recipe *r, const ans_problem *p, diag_ctx *d) {
@@ -277,14 +285,10 @@ int ans_plan_build(ans_plan *pl, const ir_recipe *r, const ans_problem *p, diag_
   ans_rule_messages(&b);
 
   if (b.scr) {
-    screen_pool(&pl->pool, b.scr);
+    screen_pool(&pl->pool, b.scr, 0);
     pl->screened = 1;
   }
   ans_select(pl, r, d);
-  /* The chosen generators are typed against every symmetry for the table. */
-  for (size_t i = 0; i < pl->norder; i++)
-    for (int s = 0; s < IR_SYM_COUNT; s++)
-      if (pl->pool.gen[pl->order[i]].sig.sym[s] == ANS_SIG_UNTYPED) ans_type_gen(&b, pl->order[i], s);
 
   if (b.scr) ans_screen_free(&scr);
   for (int i = 0; i < r->nrules; i++) {

@@ -45,10 +45,8 @@ int ans_sig_commutes(const pauli_sum *s, size_t off, size_t len, const pauli_sum
   return w <= ANS_COMM_TOL * (ms * ss > 1 ? ms * ss : 1) ? ANS_SIG_KEEPS : ANS_SIG_BREAKS;
 }
 
-double ans_type_gen(ans_build *b, size_t k, int sym) {
-  ans_pool *pool = &b->pl->pool;
+double ans_type_gen(ans_pool *pool, size_t k, const ans_problem *p, int sym) {
   ans_gen *g = &pool->gen[k];
-  const ans_problem *p = b->p;
   int tapered = p->taper && p->taper->nsym > 0;
   if (!p->sym[sym]) {
     g->sig.sym[sym] = ANS_SIG_UNKNOWN;
@@ -70,6 +68,12 @@ double ans_type_gen(ans_build *b, size_t k, int sym) {
   double worst = 0;
   g->sig.sym[sym] = (signed char)ans_sig_commutes(&pool->words, g->off, g->len, p->sym[sym], &worst);
   return worst;
+}
+
+void ans_plan_type(ans_plan *pl, const ans_problem *p) {
+  for (size_t i = 0; i < pl->norder; i++)
+    for (int s = 0; s < IR_SYM_COUNT; s++)
+      if (pl->pool.gen[pl->order[i]].sig.sym[s] == ANS_SIG_UNTYPED) ans_type_gen(&pl->pool, pl->order[i], p, s);
 }
 
 /* S|b> for a basis state b: the amplitude on b (the eigenvalue when b is an
