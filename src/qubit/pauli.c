@@ -50,6 +50,13 @@ int pauli_word_weight(int nw, const uint64_t *x, const uint64_t *z) {
   return w;
 }
 
+int pauli_word_support(int nw, const uint64_t *x, const uint64_t *z, int *qubits) {
+  int k = 0;
+  for (int i = 0; i < nw; i++)
+    for (uint64_t m = x[i] | z[i]; m; m &= m - 1) qubits[k++] = 64 * i + __builtin_ctzll(m);
+  return k;
+}
+
 int pauli_word_ycount(int nw, const uint64_t *x, const uint64_t *z) {
   int w = 0;
   for (int i = 0; i < nw; i++) w += popc(x[i] & z[i]);
@@ -300,55 +307,214 @@ void pauli_sum_scale(pauli_sum *s, double complex f) {
   for (size_t i = 0; i < s->len; i++) s->c[i] *= f;
 }
 
-/* Sort a permutation of term indices in canonical word order. */
-typedef struct sort_ctx {
-  const pauli_sum *s;
-} sort_ctx;
+/* ---- canonical order by radix sort ----
+ *
+ * Each term becomes a record of K key words followed by its coefficient.  The
+ * key is a big-endian bit string: the weight (wb bits), then two bits per qubit
+ * from qubit 0 on, X=00 Y=01 Z=10 I=11, so that unsigned comparison of keys is
+ * exactly pauli_word_cmp.  Records are sorted by a stable most-significant-byte
+ * radix sort (contiguous memory, no comparisons through pointers), which keeps
+ * sums of tens of millions of terms fast; the masks are decoded from the keys
+ * afterwards, so the term arrays can be freed while sorting. */
 
-static int cmp_terms(const void *a, const void *b, void *arg) {
-  const pauli_sum *s = ((sort_ctx *)arg)->s;
-  size_t i = *(const size_t *)a, j = *(const size_t *)b;
-  int c = pauli_word_cmp(s->nw, pauli_sum_x(s, i), pauli_sum_z(s, i), pauli_sum_x(s, j),
-                         pauli_sum_z(s, j));
-  if (c) return c;
-  return i < j ? -1 : i > j; /* stable: equal words merge in insertion order */
+typedef struct canon_layout {
+  int n, nw;    /* qubits, mask words */
+  int wb;       /* bits of the weight field */
+  int K;        /* key words */
+  int stride;   /* uint64 words per record: K + 2 (coefficient re, im) */
+} canon_layout;
+
+static canon_layout canon_layout_of(int n) {
+  canon_layout L;
+  L.n = n;
+  L.nw = pauli_nwords(n);
+  L.wb = n < 65536 ? 16 : 32;
+  L.K = (L.wb + 2 * n + 63) / 64;
+  if (L.K < 1) L.K = 1;
+  L.stride = L.K + 2;
+  return L;
+}
+
+/* Spread the low 32 bits of v to the even bit positions. */
+static inline uint64_t spread32(uint64_t v) {
+  v &= 0xffffffffULL;
+  v = (v | (v << 16)) & 0x0000ffff0000ffffULL;
+  v = (v | (v << 8)) & 0x00ff00ff00ff00ffULL;
+  v = (v | (v << 4)) & 0x0f0f0f0f0f0f0f0fULL;
+  v = (v | (v << 2)) & 0x3333333333333333ULL;
+  v = (v | (v << 1)) & 0x5555555555555555ULL;
+  return v;
+}
+
+/* Inverse of spread32: gather the even bits into the low 32. */
+static inline uint64_t gather32(uint64_t v) {
+  v &= 0x5555555555555555ULL;
+  v = (v | (v >> 1)) & 0x3333333333333333ULL;
+  v = (v | (v >> 2)) & 0x0f0f0f0f0f0f0f0fULL;
+  v = (v | (v >> 4)) & 0x00ff00ff00ff00ffULL;
+  v = (v | (v >> 8)) & 0x0000ffff0000ffffULL;
+  v = (v | (v >> 16)) & 0x00000000ffffffffULL;
+  return v;
+}
+
+static inline uint64_t rev64(uint64_t v) {
+  v = ((v >> 1) & 0x5555555555555555ULL) | ((v & 0x5555555555555555ULL) << 1);
+  v = ((v >> 2) & 0x3333333333333333ULL) | ((v & 0x3333333333333333ULL) << 2);
+  v = ((v >> 4) & 0x0f0f0f0f0f0f0f0fULL) | ((v & 0x0f0f0f0f0f0f0f0fULL) << 4);
+  return __builtin_bswap64(v);
+}
+
+/* 32 bits of x and z (qubit t at bit t) -> 64 code bits, qubit 0 at the top. */
+static inline uint64_t code_chunk(uint64_t x32, uint64_t z32) {
+  uint64_t hi = ~x32 & 0xffffffffULL, lo = ~(x32 ^ z32) & 0xffffffffULL;
+  return rev64((spread32(lo) << 1) | spread32(hi));
+}
+
+static inline void chunk_masks(uint64_t code, uint64_t *x32, uint64_t *z32) {
+  uint64_t r = rev64(code);
+  uint64_t hi = gather32(r), lo = gather32(r >> 1);
+  *x32 = ~hi & 0xffffffffULL;
+  *z32 = ~(*x32 ^ lo) & 0xffffffffULL;
+}
+
+/* The key of word (x, z) into key[0..K). */
+static void canon_key(const canon_layout *L, const uint64_t *x, const uint64_t *z, uint64_t *key) {
+  memset(key, 0, (size_t)L->K * sizeof *key);
+  int w = pauli_word_weight(L->nw, x, z);
+  /* bit stream position p (0 = MSB of key[0]) */
+  key[0] = (uint64_t)w << (64 - L->wb);
+  int nchunks = (L->n + 31) / 32;
+  for (int c = 0; c < nchunks; c++) {
+    uint64_t xs = (x[c / 2] >> (32 * (c & 1))) & 0xffffffffULL;
+    uint64_t zs = (z[c / 2] >> (32 * (c & 1))) & 0xffffffffULL;
+    int valid = L->n - 32 * c < 32 ? L->n - 32 * c : 32;
+    uint64_t code = code_chunk(xs, zs);
+    if (valid < 32) code &= ~0ULL << (64 - 2 * valid); /* padding qubits: 00 */
+    long p = L->wb + 64L * c;
+    int kw = (int)(p / 64), sh = (int)(p % 64);
+    key[kw] |= code >> sh;
+    if (sh && kw + 1 < L->K) key[kw + 1] |= code << (64 - sh);
+  }
+}
+
+static void canon_unkey(const canon_layout *L, const uint64_t *key, uint64_t *x, uint64_t *z) {
+  memset(x, 0, (size_t)L->nw * sizeof *x);
+  memset(z, 0, (size_t)L->nw * sizeof *z);
+  int nchunks = (L->n + 31) / 32;
+  for (int c = 0; c < nchunks; c++) {
+    long p = L->wb + 64L * c;
+    int kw = (int)(p / 64), sh = (int)(p % 64);
+    uint64_t code = key[kw] << sh;
+    if (sh && kw + 1 < L->K) code |= key[kw + 1] >> (64 - sh);
+    int valid = L->n - 32 * c < 32 ? L->n - 32 * c : 32;
+    uint64_t xs, zs;
+    chunk_masks(code, &xs, &zs);
+    uint64_t m = valid == 32 ? 0xffffffffULL : (((uint64_t)1 << valid) - 1);
+    x[c / 2] |= (xs & m) << (32 * (c & 1));
+    z[c / 2] |= (zs & m) << (32 * (c & 1));
+  }
+}
+
+static inline int key_cmp(const uint64_t *a, const uint64_t *b, int K) {
+  for (int i = 0; i < K; i++)
+    if (a[i] != b[i]) return a[i] < b[i] ? -1 : 1;
+  return 0;
+}
+
+/* Stable insertion sort of cnt records by whole key (small buckets). */
+static void canon_insertion(uint64_t *rec, size_t cnt, int K, int stride, uint64_t *tmp1) {
+  for (size_t i = 1; i < cnt; i++) {
+    uint64_t *r = rec + i * (size_t)stride;
+    if (key_cmp(r - stride, r, K) <= 0) continue;
+    memcpy(tmp1, r, (size_t)stride * sizeof *r);
+    size_t j = i;
+    while (j > 0 && key_cmp(rec + (j - 1) * (size_t)stride, tmp1, K) > 0) {
+      memcpy(rec + j * (size_t)stride, rec + (j - 1) * (size_t)stride, (size_t)stride * sizeof *r);
+      j--;
+    }
+    memcpy(rec + j * (size_t)stride, tmp1, (size_t)stride * sizeof *r);
+  }
+}
+
+/* Stable MSD radix sort of cnt records on key byte `byte` and after. */
+static void canon_radix(uint64_t *rec, uint64_t *tmp, size_t cnt, int byte, int K, int stride) {
+  size_t sz = (size_t)stride;
+  while (cnt > 1) {
+    if (cnt <= 48 || byte >= 8 * K) {
+      if (byte < 8 * K) canon_insertion(rec, cnt, K, stride, tmp);
+      return;
+    }
+    int kw = byte / 8, sh = 56 - 8 * (byte % 8);
+    size_t count[256] = {0};
+    for (size_t i = 0; i < cnt; i++) count[(rec[i * sz + (size_t)kw] >> sh) & 255]++;
+    int nonempty = 0;
+    for (int b = 0; b < 256; b++) nonempty += count[b] != 0;
+    if (nonempty == 1) {
+      byte++;
+      continue;
+    }
+    size_t start[256], pos[256], s = 0;
+    for (int b = 0; b < 256; b++) {
+      start[b] = pos[b] = s;
+      s += count[b];
+    }
+    for (size_t i = 0; i < cnt; i++) {
+      int b = (int)((rec[i * sz + (size_t)kw] >> sh) & 255);
+      memcpy(tmp + pos[b]++ * sz, rec + i * sz, sz * sizeof *rec);
+    }
+    memcpy(rec, tmp, cnt * sz * sizeof *rec);
+    for (int b = 0; b < 256; b++)
+      if (count[b] > 1) canon_radix(rec + start[b] * sz, tmp, count[b], byte + 1, K, stride);
+    return;
+  }
 }
 
 void pauli_sum_canonicalize(pauli_sum *s, double tol) {
   size_t n = s->len, nw = (size_t)s->nw;
   if (n == 0) return;
-  size_t *perm = xmalloc(n * sizeof *perm);
-  for (size_t i = 0; i < n; i++) perm[i] = i;
-  sort_ctx ctx = {s};
-  qsort_r(perm, n, sizeof *perm, cmp_terms, &ctx);
-  uint64_t *nx = xmalloc(n * nw * sizeof(uint64_t)), *nz = xmalloc(n * nw * sizeof(uint64_t));
-  double complex *nc = xmalloc(n * sizeof(double complex));
-  size_t m = 0;
-  for (size_t k = 0; k < n;) {
-    size_t i = perm[k];
-    double complex c = 0;
-    size_t k2 = k;
-    while (k2 < n && pauli_word_equal(s->nw, pauli_sum_x(s, i), pauli_sum_z(s, i),
-                                      pauli_sum_x(s, perm[k2]), pauli_sum_z(s, perm[k2]))) {
-      c += s->c[perm[k2]];
-      k2++;
-    }
-    if (cabs(c) > tol) {
-      memcpy(nx + m * nw, pauli_sum_x(s, i), nw * sizeof(uint64_t));
-      memcpy(nz + m * nw, pauli_sum_z(s, i), nw * sizeof(uint64_t));
-      nc[m++] = c;
-    }
-    k = k2;
+  canon_layout L = canon_layout_of(s->n);
+  size_t sz = (size_t)L.stride;
+  uint64_t *rec = xmalloc(n * sz * sizeof *rec);
+  for (size_t t = 0; t < n; t++) {
+    uint64_t *r = rec + t * sz;
+    canon_key(&L, pauli_sum_x(s, t), pauli_sum_z(s, t), r);
+    memcpy(r + L.K, &s->c[t], sizeof(double complex));
   }
-  free(perm);
   free(s->x);
   free(s->z);
   free(s->c);
-  s->x = nx;
-  s->z = nz;
-  s->c = nc;
+  s->x = s->z = NULL;
+  s->c = NULL;
+  s->cap = s->len = 0;
+  uint64_t *tmp = xmalloc((n > 48 ? n : 1) * sz * sizeof *tmp);
+  canon_radix(rec, tmp, n, 0, L.K, L.stride);
+  free(tmp);
+  /* merge runs of equal keys in their (stable) arrival order */
+  size_t m = 0;
+  for (size_t k = 0; k < n;) {
+    double complex c;
+    memcpy(&c, rec + k * sz + L.K, sizeof c);
+    size_t k2 = k + 1;
+    while (k2 < n && key_cmp(rec + k * sz, rec + k2 * sz, L.K) == 0) {
+      double complex c2;
+      memcpy(&c2, rec + k2 * sz + L.K, sizeof c2);
+      c += c2;
+      k2++;
+    }
+    if (cabs(c) > tol) {
+      if (m != k) memmove(rec + m * sz, rec + k * sz, (size_t)L.K * sizeof *rec);
+      memcpy(rec + m * sz + L.K, &c, sizeof c);
+      m++;
+    }
+    k = k2;
+  }
+  pauli_sum_reserve(s, m ? m : 1);
+  for (size_t t = 0; t < m; t++) {
+    canon_unkey(&L, rec + t * sz, s->x + t * nw, s->z + t * nw);
+    memcpy(&s->c[t], rec + t * sz + L.K, sizeof(double complex));
+  }
   s->len = m;
-  s->cap = n;
+  free(rec);
 }
 
 static const double complex ipow[4] = {1, I, -1, -I};
@@ -499,11 +665,11 @@ void pauli_acc_add(pauli_acc *a, const uint64_t *x, const uint64_t *z, double co
 size_t pauli_acc_len(const pauli_acc *a) { return a->terms.len; }
 
 void pauli_acc_finish(pauli_acc *a, pauli_sum *out, double tol) {
+  free(a->slot); /* before sorting: the sort needs the memory */
   pauli_sum_free(out);
   *out = a->terms;
-  pauli_sum_canonicalize(out, tol);
-  free(a->slot);
   free(a);
+  pauli_sum_canonicalize(out, tol);
 }
 
 void pauli_acc_free(pauli_acc *a) {

@@ -9,7 +9,11 @@
 #include <string.h>
 #include <cmocka.h>
 
+#include "cairn/json.h"
 #include "cairn/pauli.h"
+#include "cairn/util.h"
+
+#include <complex.h>
 
 static void word1(char L, uint64_t *x, uint64_t *z) {
   x[0] = z[0] = 0;
@@ -82,6 +86,9 @@ static void test_wide_words(void **state) {
   assert_int_equal(k, 0); /* (-i)(i) = 1 */
   assert_int_equal(pauli_word_weight(nw, x1, z1), 4);
   assert_int_equal(pauli_word_ycount(nw, x1, z1), 1);
+  int sup[4];
+  assert_int_equal(pauli_word_support(nw, x1, z1, sup), 4);
+  assert_true(sup[0] == 0 && sup[1] == 63 && sup[2] == 64 && sup[3] == 129);
 }
 
 static void test_parse_errors(void **state) {
@@ -151,11 +158,135 @@ static void test_sums(void **state) {
   pauli_sum_free(&c);
 }
 
+
+/* The radix-sorted canonical form agrees with pauli_word_cmp at widths around
+ * the 32- and 64-qubit boundaries, keeps every word exactly and sums repeats
+ * in arrival order (compared with a naive quadratic merge). */
+static void test_canonical_order(void **state) {
+  (void)state;
+  const int widths[] = {1, 2, 5, 31, 32, 33, 63, 64, 65, 100, 130, 200};
+  util_rng r;
+  util_rng_seed(&r, 42);
+  for (size_t wi = 0; wi < sizeof widths / sizeof widths[0]; wi++) {
+    int n = widths[wi], nw = pauli_nwords(n);
+    pauli_sum s, ref;
+    pauli_sum_init(&s, n);
+    pauli_sum_init(&ref, n);
+    uint64_t *x = calloc((size_t)nw, 8), *z = calloc((size_t)nw, 8);
+    int nterms = 400;
+    for (int t = 0; t < nterms; t++) {
+      memset(x, 0, (size_t)nw * 8);
+      memset(z, 0, (size_t)nw * 8);
+      int dens = (int)(util_rng_next(&r) % 4); /* sparse to dense words */
+      for (int q = 0; q < n; q++)
+        if ((int)(util_rng_next(&r) % 8) <= dens) pauli_set_letter(x, z, q, "XYZ"[util_rng_next(&r) % 3]);
+      /* repeat an earlier word now and then */
+      if (t > 0 && util_rng_next(&r) % 5 == 0) {
+        size_t k = util_rng_next(&r) % s.len;
+        memcpy(x, pauli_sum_x(&s, k), (size_t)nw * 8);
+        memcpy(z, pauli_sum_z(&s, k), (size_t)nw * 8);
+      }
+      double complex c = (double)(util_rng_next(&r) % 7) - 3.0 + I * (double)(util_rng_next(&r) % 3);
+      pauli_sum_add(&s, x, z, c);
+      /* naive merge */
+      size_t k = 0;
+      for (; k < ref.len; k++)
+        if (pauli_word_equal(nw, pauli_sum_x(&ref, k), pauli_sum_z(&ref, k), x, z)) break;
+      if (k < ref.len) ref.c[k] += c;
+      else pauli_sum_add(&ref, x, z, c);
+    }
+    pauli_sum_canonicalize(&s, 0.0);
+    size_t nonzero = 0;
+    for (size_t k = 0; k < ref.len; k++) {
+      if (ref.c[k] == 0) continue;
+      nonzero++;
+      long i = pauli_sum_find(&s, pauli_sum_x(&ref, k), pauli_sum_z(&ref, k));
+      assert_true(i >= 0);
+      assert_true(s.c[i] == ref.c[k]);
+    }
+    assert_int_equal(s.len, nonzero);
+    for (size_t i = 1; i < s.len; i++)
+      assert_true(pauli_word_cmp(nw, pauli_sum_x(&s, i - 1), pauli_sum_z(&s, i - 1), pauli_sum_x(&s, i),
+                                 pauli_sum_z(&s, i)) < 0);
+    free(x);
+    free(z);
+    pauli_sum_free(&s);
+    pauli_sum_free(&ref);
+  }
+}
+
+/* The messages the front end shows at a recipe's `word` span. */
+static void test_parse_messages(void **state) {
+  (void)state;
+  uint64_t x[2], z[2];
+  char err[160];
+  size_t off = 0;
+  assert_int_equal(pauli_word_parse("X0 Q1", 8, x, z, err, sizeof err, &off), -1);
+  assert_string_equal(err, "`Q1` is not a Pauli letter with a qubit (X, Y or Z and a number)");
+  assert_int_equal(off, 3);
+  assert_int_equal(pauli_word_parse("X0 Y3 Z3", 8, x, z, err, sizeof err, &off), -1);
+  assert_string_equal(err, "qubit 3 appears twice");
+  assert_int_equal(off, 6);
+  assert_int_equal(pauli_word_parse("X0 Z8", 8, x, z, err, sizeof err, &off), -1);
+  assert_string_equal(err, "qubit 8 is beyond the register (qubits 0..7)");
+  assert_int_equal(off, 3);
+  assert_int_equal(pauli_word_parse("XQZ", 8, x, z, err, sizeof err, &off), -1);
+  assert_int_equal(off, 1);
+  assert_int_equal(pauli_word_parse("X1x", 8, x, z, err, sizeof err, &off), -1);
+  /* 100-qubit register: sparse text round trip */
+  assert_int_equal(pauli_word_parse("Z99 X0 Y64", 100, x, z, err, sizeof err, &off), 0);
+  char *t = pauli_word_str(100, x, z);
+  assert_string_equal(t, "X0 Y64 Z99");
+  free(t);
+}
+
+
+/* A Pauli sum survives JSON text exactly: every coefficient reads back to the
+ * same double (0.7794640752287191 is one cJSON alone would print short). */
+static void test_json_round_trip(void **state) {
+  (void)state;
+  pauli_sum s, back;
+  pauli_sum_init(&s, 70);
+  util_rng r;
+  util_rng_seed(&r, 5);
+  pauli_sum_add_identity(&s, -46.42853115310073);
+  pauli_sum_add_text(&s, "Z0 Z69", 0.7794640752287191);
+  for (int k = 0; k < 200; k++) {
+    char w[32];
+    snprintf(w, sizeof w, "X%d Y%d", k % 35, 35 + k % 35);
+    double re = (util_rng_uniform(&r) - 0.5) * 1e-3 * (double)(k + 1);
+    double complex c = k % 3 ? re : re + I * util_rng_uniform(&r);
+    pauli_sum_add_text(&s, w, c);
+  }
+  pauli_sum_canonicalize(&s, 0.0);
+  cJSON *j = json_pauli_sum(&s);
+  char *text = json_print(j);
+  assert_non_null(strstr(text, "70")); /* integers as integers, not 7e1 */
+  assert_null(strstr(text, "7e1"));
+  cJSON *parsed = cJSON_Parse(text);
+  assert_non_null(parsed);
+  char err[160];
+  assert_int_equal(json_read_pauli_sum(parsed, &back, err, sizeof err), 0);
+  pauli_sum_canonicalize(&back, 0.0);
+  assert_int_equal(back.len, s.len);
+  for (size_t t = 0; t < s.len; t++) {
+    assert_true(pauli_word_equal(s.nw, pauli_sum_x(&s, t), pauli_sum_z(&s, t), pauli_sum_x(&back, t),
+                                 pauli_sum_z(&back, t)));
+    assert_true(s.c[t] == back.c[t]);
+  }
+  free(text);
+  cJSON_Delete(j);
+  cJSON_Delete(parsed);
+  pauli_sum_free(&s);
+  pauli_sum_free(&back);
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_single_qubit_table), cmocka_unit_test(test_enumerate_words),
       cmocka_unit_test(test_wide_words),         cmocka_unit_test(test_parse_errors),
-      cmocka_unit_test(test_sums),
+      cmocka_unit_test(test_sums),               cmocka_unit_test(test_canonical_order),
+      cmocka_unit_test(test_parse_messages),     cmocka_unit_test(test_json_round_trip),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }

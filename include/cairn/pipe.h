@@ -1,0 +1,35 @@
+/* pipe.h — the pipeline of one scan point: recipe → active space → qubit
+ * Hamiltonian (encoded, tapered) → symmetry operators, ready for the ansatz.
+ *
+ * Each stage owns its data and hands it on; pipe_point only holds the results
+ * together.  Ownership: pipe_point owns everything in it; pipe_point_free.
+ */
+#ifndef CAIRN_PIPE_H
+#define CAIRN_PIPE_H
+
+#include "cairn/chem.h"
+#include "cairn/diag.h"
+#include "cairn/ir.h"
+#include "cairn/pauli.h"
+#include "cairn/qubit.h"
+
+typedef struct pipe_point {
+  int point;              /* scan point index */
+  chem_space space;       /* active-space integrals */
+  chem_refs refs;         /* HF (and later MP2, CCSD, exact) energies */
+  qubit_encoder *enc;     /* the recipe's encoding over 2*norb modes */
+  pauli_sum ham_full;     /* qubit Hamiltonian before tapering */
+  qubit_taper taper;      /* nsym = 0 without `taper` */
+  pauli_sum ham;          /* the Hamiltonian the ansatz acts on (tapered) */
+  int nqubits;            /* qubits of the ansatz register */
+  uint64_t *ref_full;     /* Hartree-Fock basis state, encoded, before tapering */
+  uint64_t *ref;          /* the same on the ansatz register */
+  pauli_sum sym[IR_SYM_COUNT]; /* N, S_z, S^2 on the ansatz register */
+} pipe_point;
+
+/* Build point `point` of recipe r up to the symmetry operators.  Returns 0, or
+ * -1 after reporting through d (the partial result is freed). */
+int pipe_point_build(const ir_recipe *r, int point, diag_ctx *d, pipe_point *out);
+void pipe_point_free(pipe_point *p);
+
+#endif

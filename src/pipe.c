@@ -1,0 +1,78 @@
+/* pipe.c — one scan point from recipe to the ansatz's Hamiltonian. */
+#include "config.h"
+
+#include "cairn/pipe.h"
+#include "cairn/util.h"
+
+#include <stdlib.h>
+#include <string.h>
+
+/* Hartree-Fock occupations (interleaved spin orbitals) as encoded bits. */
+static void hf_bits(const pipe_point *p, uint64_t *out) {
+  int nmodes = 2 * p->space.norb;
+  uint64_t *occ = xcalloc((size_t)pauli_nwords(nmodes), sizeof *occ);
+  for (int i = 0; i < p->space.nalpha; i++) pauli_set(occ, 2 * i, 1);
+  for (int i = 0; i < p->space.nbeta; i++) pauli_set(occ, 2 * i + 1, 1);
+  qubit_encoder_bits(p->enc, occ, out);
+  free(occ);
+}
+
+int pipe_point_build(const ir_recipe *r, int point, diag_ctx *d, pipe_point *out) {
+  memset(out, 0, sizeof *out);
+  out->point = point;
+  if (chem_build_space(r, point, d, &out->space, &out->refs) != 0) return -1;
+  int nmodes = 2 * out->space.norb;
+  out->enc = qubit_encoder_new(r->encoding, nmodes);
+  pauli_sum_init(&out->ham_full, nmodes);
+  qubit_hamiltonian(&out->space, out->enc, &out->ham_full);
+  int nw = pauli_nwords(nmodes);
+  out->ref_full = xcalloc((size_t)nw, sizeof(uint64_t));
+  hf_bits(out, out->ref_full);
+
+  pauli_sum full[IR_SYM_COUNT];
+  for (int s = 0; s < IR_SYM_COUNT; s++) pauli_sum_init(&full[s], nmodes);
+  qubit_number(out->enc, &full[IR_SYM_PARTICLES]);
+  qubit_spin_z(out->enc, &full[IR_SYM_SPIN_Z]);
+  qubit_spin_squared(out->enc, &full[IR_SYM_SPIN_SQUARED]);
+
+  if (r->taper) {
+    qubit_taper_find(&out->ham_full, out->ref_full, out->enc, &out->taper);
+  } else {
+    memset(&out->taper, 0, sizeof out->taper);
+    out->taper.nqubits = nmodes;
+  }
+  out->nqubits = nmodes - out->taper.nsym;
+  out->ref = xcalloc((size_t)pauli_nwords(out->nqubits), sizeof(uint64_t));
+  pauli_sum_init(&out->ham, out->nqubits);
+  if (out->taper.nsym > 0) {
+    qubit_taper_apply(&out->taper, &out->ham_full, &out->ham);
+    qubit_taper_bits(&out->taper, out->ref_full, out->ref);
+    for (int s = 0; s < IR_SYM_COUNT; s++) {
+      pauli_sum_init(&out->sym[s], out->nqubits);
+      /* N, S_z and S^2 commute with every Z2 symmetry of a molecular
+       * Hamiltonian (parities and point-group operations), so they taper. */
+      if (qubit_taper_apply(&out->taper, &full[s], &out->sym[s]) != 0) {
+        diag_report(d, DIAG_ERROR, r->encoding_span,
+                    "internal: %s does not commute with a tapered symmetry", ir_symmetry_name((ir_symmetry)s));
+      }
+      pauli_sum_free(&full[s]);
+    }
+  } else {
+    pauli_sum_copy(&out->ham, &out->ham_full);
+    memcpy(out->ref, out->ref_full, (size_t)nw * sizeof(uint64_t));
+    for (int s = 0; s < IR_SYM_COUNT; s++) out->sym[s] = full[s];
+  }
+  return 0;
+}
+
+void pipe_point_free(pipe_point *p) {
+  chem_space_free(&p->space);
+  qubit_encoder_free(p->enc);
+  pauli_sum_free(&p->ham_full);
+  qubit_taper_free(&p->taper); /* safe on a zeroed taper */
+  pauli_sum_free(&p->ham);
+  free(p->ref_full);
+  free(p->ref);
+  for (int s = 0; s < IR_SYM_COUNT; s++) pauli_sum_free(&p->sym[s]);
+  memset(p, 0, sizeof *p);
+}
