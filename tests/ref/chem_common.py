@@ -33,13 +33,15 @@ def psi4():
     directory; exits 77 (skip) only when psi4 is not installed."""
     global _psi4, _scratch
     if _psi4 is None:
+        # made before the import so that its removal (atexit, last in first
+        # out) runs after psi4's own clean-up of the files in it
+        _scratch = tmpdir("cairn-psi4-")
         sys.path.insert(0, "/usr/lib/x86_64-linux-gnu")
         try:
             import psi4 as p
         except ImportError:
             print("psi4 is not installed (Debian package psi4): skipped")
             sys.exit(77)
-        _scratch = tmpdir("cairn-psi4-")
         p.set_output_file(os.path.join(_scratch, "psi4.out"), False)
         p.core.be_quiet()
         p.core.IOManager.shared_object().set_default_path(_scratch)
