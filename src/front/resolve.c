@@ -432,7 +432,7 @@ static void resolve_vary(rs *c, ast_stmt *s, int order) {
   sc->to = snap(from_internal(x[1], unit));
   sc->step = snap(from_internal(x[2], unit));
   sc->span = s->span;
-  c->r->npoints = (int)count;
+  c->scan_points = (int)count;
   c->vary_dim = dim;
   c->vary_unit = unit;
   c->vary_from = to_internal(sc->from, unit);
@@ -498,7 +498,7 @@ static void resolve_atoms(rs *c) {
     return;
   }
   int ok = 1;
-  int np = r->npoints > 0 ? r->npoints : 1;
+  int np = c->scan_points > 0 ? c->scan_points : 1;
   r->natoms = na;
   r->npoints = np;
   r->points = xcalloc((size_t)np, sizeof *r->points);
@@ -533,6 +533,7 @@ static void resolve_atoms(rs *c) {
         continue;
       }
       rs_eval(c, it->e[k], &v);
+      if (v.varies) c->scan_used = 1;
       for (int p = 0; p < np; p++) {
         if (v.varies && r->scan.active) {
           c->point = p;
@@ -565,6 +566,11 @@ static void resolve_atoms(rs *c) {
         }
       }
   if (ok) c->molecule_ok |= 1;
+  if (ok && r->scan.active && !c->scan_used) {
+    diag_report(c->d, DIAG_WARNING, r->scan.span, "no atom coordinate depends on `%s`: every point of the scan is the same geometry",
+                r->scan.name);
+    diag_help(c->d, "use the scanned name in the atoms block, directly or through a `let`");
+  }
 }
 
 static void resolve_basis(rs *c) {

@@ -75,6 +75,8 @@ typedef struct rs {
   ir_unit vary_unit;
   double vary_from;          /* internal units */
   int vary_ok;
+  int scan_points;           /* points of the scan (0: no scan) */
+  int scan_used;             /* an atom coordinate depends on the scanned name */
 
   int point;                 /* -1: definition values; k >= 0: scan point k */
   double point_value;        /* the scanned value at point k, internal units */

@@ -68,7 +68,15 @@ static int molecule(rs *c, int *nalpha, int *nbeta) {
     }
   } else {
     r->problem = IR_PROBLEM_INTEGRALS;
+    /* one point, no atoms: later stages read point 0 */
+    r->npoints = 1;
+    r->points = xcalloc(1, sizeof *r->points);
     int bad = 0;
+    if (r->scan.active) {
+      diag_report(c->d, DIAG_ERROR, r->scan.span, "a scan varies atom coordinates, and an integrals file has none");
+      diag_note(c->d, ints->span, "the molecule comes from this file");
+      bad = 1;
+    }
     if (basis) {
       diag_report(c->d, DIAG_ERROR, basis->kw, "`basis` is for atoms; an integrals file has its own orbitals");
       diag_note(c->d, ints->span, "the integrals are read from here");
