@@ -1,6 +1,7 @@
 /* main.c — the cairn command line: global options, then one command. */
 #include "config.h"
 
+#include "cairn/help.h"
 #include "cmd/cmd.h"
 
 #include <stdarg.h>
@@ -38,8 +39,17 @@ static const command commands[] = {
      "  Optimize the recipe's ansatz on a noise-free statevector and compare it with\n"
      "  the exact and classical reference energies of the active space.\n"},
     {"build", cmd_build, "lower the ansatz to gates",
-     "cairn build [-o OUT] [--format listing|qasm2|qasm3] FILE\n"
-     "  Lower the recipe's ansatz to a gate circuit; print gate counts.\n"},
+     "cairn build [-o OUT] [--format listing|qasm2|qasm3] [--bind REPORT [--point K]]\n"
+     "            [--tree] [--short] [--no-passes] [--json] [--program] FILE\n"
+     "  Lower the recipe's ansatz to a gate circuit; print gate counts (cx, single,\n"
+     "  total, depth, per generator).  Without -o, write the recipe's `emit` files;\n"
+     "  `-o -` writes to standard output.  The format follows --format, else the\n"
+     "  extension of OUT (.qasm, .qasm3: OpenQASM 3.0; .qasm2: OpenQASM 2.0; else\n"
+     "  the listing).  --bind binds the final parameters of a `cairn run --json`\n"
+     "  report (point K, default 0); --tree uses balanced cx trees (lower depth);\n"
+     "  --short lowers excitations as short circuits; --no-passes skips the\n"
+     "  cancellation passes; --program reads a rotation program in JSON instead of\n"
+     "  a recipe.\n"},
     {"integrals", cmd_integrals, "write the active-space Hamiltonian as FCIDUMP",
      "cairn integrals -o OUT.fcidump FILE\n"
      "  Compute the active-space integrals of the recipe's molecule and write them\n"
@@ -81,7 +91,9 @@ static void print_help(FILE *f) {
           "  %-10s %s\n\n"
           "Simulations are noise-free statevector computations; energies are exact only\n"
           "within the recipe's basis set and active space.\n",
-          "help", "help on a command (cairn help COMMAND)");
+          "help", "help on a command or a word of the recipe language (cairn help TOPIC)");
+  fprintf(f, "\nhelp topics on the recipe language (cairn help TOPIC, or any keyword):\n");
+  help_list(f);
 }
 
 static int cmd_help(int argc, char **argv) {
@@ -92,9 +104,15 @@ static int cmd_help(int argc, char **argv) {
   const command *c = find(argv[1]);
   if (c) {
     fputs(c->usage, stdout);
+    /* a command that is also a word of the language (`integrals`) */
+    if (help_find(argv[1]) > 0) {
+      printf("\nIn recipes:\n\n");
+      help_topic(argv[1], stdout);
+    }
     return 0;
   }
-  fprintf(stderr, "cairn help: no help on `%s`; try `cairn --help`\n", argv[1]);
+  if (help_topic(argv[1], stdout) > 0) return 0;
+  fprintf(stderr, "cairn help: no help on `%s`; try `cairn help` for the list of topics\n", argv[1]);
   return 2;
 }
 

@@ -60,6 +60,8 @@ typedef struct ans_circuit {
   size_t nrot, caprot;
   int nparams;
   int *param_gen;        /* generator of each parameter; -1 for reference angles */
+  double *param_init;    /* initial value of each parameter: the optimized mean-field
+                            angles for reference parameters, 0 for generator amplitudes */
   ans_gen_info *gens;    /* ngens entries, indexed by ans_rotation.gen */
   int ngens;
   int nref_params;       /* leading parameters that belong to the reference (mean-field angles) */

@@ -20,6 +20,7 @@ void ans_circuit_free(ans_circuit *c) {
   pauli_sum_free(&c->words);
   free(c->rot);
   free(c->param_gen);
+  free(c->param_init);
   free(c->slot);
   for (int g = 0; g < c->ngens; g++) free(c->gens[g].text);
   free(c->gens);
@@ -69,6 +70,8 @@ int ans_circuit_add_gen(ans_circuit *c, const ans_gen_info *info) {
 int ans_circuit_add_param(ans_circuit *c, int gen) {
   c->param_gen = xrealloc(c->param_gen, (size_t)(c->nparams + 1) * sizeof *c->param_gen);
   c->param_gen[c->nparams] = gen;
+  c->param_init = xrealloc(c->param_init, (size_t)(c->nparams + 1) * sizeof *c->param_init);
+  c->param_init[c->nparams] = 0;
   if (gen < 0) c->nref_params++;
   return c->nparams++;
 }

@@ -1,0 +1,2 @@
+" cairn ansatz recipes
+au BufRead,BufNewFile *.cairn setfiletype cairn

@@ -1,0 +1,261 @@
+"""ans_common.py — shared helpers of the ansatz reference checks.
+
+Independent of cairn's C code: molecules come from psi4 run live (FCIDUMP
+files written by psi4 itself), and everything else is rebuilt here with numpy
+in the occupation basis (second quantization by explicit matrices), then
+carried into an encoding by its GF(2) matrix (Jordan-Wigner: identity; parity:
+b_i = n_0 + ... + n_i; Bravyi-Kitaev: the recursive matrix of Seeley, Richard
+and Love, J. Chem. Phys. 137, 224109 (2012)).  Only the generator *labels*
+(excitation indices, Pauli words, reference angles) are read from cairn's
+output; the operators are built here.
+"""
+import json
+import os
+import subprocess
+import sys
+
+import numpy as np
+
+sys.path.insert(0, "/usr/lib/x86_64-linux-gnu")
+
+
+def psi4_fcidump(geometry, path, basis="sto-3g", charge=0, mult=1):
+    """RHF with psi4 (scf_type pk, tight convergence, c1, no reorientation) and
+    its own FCIDUMP writer.  Returns the SCF energy."""
+    import psi4
+
+    psi4.core.be_quiet()
+    psi4.set_memory("500 MB")
+    psi4.core.set_output_file(path + ".out", False)
+    mol = psi4.geometry("%d %d\n%s\nsymmetry c1\nno_reorient\nno_com\n" % (charge, mult, geometry))
+    psi4.set_options({"basis": basis, "scf_type": "pk", "e_convergence": 1e-10,
+                      "d_convergence": 1e-10, "reference": "rhf"})
+    e, wfn = psi4.energy("scf", return_wfn=True, molecule=mol)
+    psi4.fcidump(wfn, fname=path)
+    psi4.core.clean()
+    return e
+
+
+def read_fcidump(path):
+    """(norb, nelec, ms2, h1, h2 chemists' (pq|rs), constant) — our own parser of
+    the format (Knowles & Handy, Comput. Phys. Commun. 54, 75 (1989))."""
+    text = open(path).read()
+    up = text.upper()
+    end = up.find("&END")
+    cut = end + 4 if end >= 0 else up.find("/") + 1
+    head, body = text[:cut], text[cut:]
+
+    def field(name):
+        i = head.upper().find(name + "=")
+        j = i + len(name) + 1
+        k = j
+        while k < len(head) and (head[k].isdigit() or head[k] == "-"):
+            k += 1
+        return int(head[j:k])
+
+    norb, nelec = field("NORB"), field("NELEC")
+    ms2 = field("MS2") if "MS2=" in head.upper() else 0
+    h1 = np.zeros((norb, norb))
+    h2 = np.zeros((norb,) * 4)
+    const = 0.0
+    for line in body.splitlines():
+        t = line.split()
+        if len(t) != 5:
+            continue
+        v = float(t[0].replace("D", "E").replace("d", "e"))
+        i, j, k, l = (int(x) for x in t[1:])
+        if i and j and k and l:
+            for a, b, c, d in ((i, j, k, l), (j, i, k, l), (i, j, l, k), (j, i, l, k),
+                               (k, l, i, j), (l, k, i, j), (k, l, j, i), (l, k, j, i)):
+                h2[a - 1, b - 1, c - 1, d - 1] = v
+        elif i and j:
+            h1[i - 1, j - 1] = h1[j - 1, i - 1] = v
+        elif not i:
+            const = v
+    return norb, nelec, ms2, h1, h2, const
+
+
+def set_electrons(src, dst, nelec, ms2):
+    """Copy an FCIDUMP file with other NELEC and MS2 (same integrals)."""
+    text = open(src).read()
+    import re
+
+    text = re.sub(r"NELEC=\s*\d+", "NELEC=%d" % nelec, text)
+    text = re.sub(r"MS2=\s*-?\d+", "MS2=%d" % ms2, text)
+    open(dst, "w").write(text)
+
+
+# ---- second quantization in the occupation basis (qubit q = bit q, 1 = occupied)
+
+def annihilators(nmodes):
+    dim = 1 << nmodes
+    ops = []
+    for j in range(nmodes):
+        a = np.zeros((dim, dim))
+        for n in range(dim):
+            if (n >> j) & 1:
+                sign = -1.0 if bin(n & ((1 << j) - 1)).count("1") % 2 else 1.0
+                a[n ^ (1 << j), n] = sign
+        ops.append(a)
+    return ops
+
+
+def hamiltonian(norb, h1, h2, const, a):
+    """H = c + sum h_pq a+_p a_q + 1/2 sum (pq|rs) a+_p a+_r a_s a_q over spin orbitals."""
+    n = 2 * norb
+    dim = 1 << n
+    ad = [x.T for x in a]
+    H = const * np.eye(dim)
+    for p in range(n):
+        for q in range(n):
+            if p % 2 == q % 2 and h1[p // 2, q // 2] != 0:
+                H += h1[p // 2, q // 2] * ad[p] @ a[q]
+    for p in range(n):
+        for q in range(n):
+            if p % 2 != q % 2:
+                continue
+            pq = ad[p] @ a[q]
+            for r in range(n):
+                for s in range(n):
+                    if r % 2 != s % 2:
+                        continue
+                    v = h2[p // 2, q // 2, r // 2, s // 2]
+                    if v == 0:
+                        continue
+                    H += 0.5 * v * (ad[p] @ ad[r] @ a[s] @ a[q])
+    return H
+
+
+def spin_operators(nmodes, a):
+    ad = [x.T for x in a]
+    N = sum(ad[p] @ a[p] for p in range(nmodes))
+    Sz = 0.5 * sum(ad[p] @ a[p] * (1 if p % 2 == 0 else -1) for p in range(nmodes))
+    Sp = sum(ad[2 * p] @ a[2 * p + 1] for p in range(nmodes // 2))
+    S2 = Sp.T @ Sp + Sz + Sz @ Sz
+    return N, Sz, S2
+
+
+def excitation(a, frm, to):
+    """T = a+_{t0} ... a+_{t(k-1)} a_{f(k-1)} ... a_{f0} (cairn's stated convention)."""
+    dim = a[0].shape[0]
+    T = np.eye(dim)
+    for t in to:
+        T = T @ a[t].T
+    for f in reversed(frm):
+        T = T @ a[f]
+    return T
+
+
+def qubit_excitation(nmodes, frm, to):
+    """Q = prod Q+_t prod Q_f with Q+ = |1><0| on each mode, no parity strings."""
+    dim = 1 << nmodes
+    Q = np.zeros((dim, dim))
+    for n in range(dim):
+        if all((n >> f) & 1 for f in frm) and not any((n >> t) & 1 for t in to):
+            m = n
+            for f in frm:
+                m &= ~(1 << f)
+            for t in to:
+                m |= 1 << t
+            Q[m, n] = 1.0
+    return Q
+
+
+# ---- encodings as GF(2) matrices: b = A n
+
+def encoding_matrix(name, n):
+    if name == "jordan-wigner":
+        return np.eye(n, dtype=int)
+    if name == "parity":
+        return np.tril(np.ones((n, n), dtype=int))
+    # Bravyi-Kitaev: B_1 = [1], B_2m = [[B_m, 0], [A_m, B_m]], A_m zero but a last row of ones
+    size = 1
+    B = np.ones((1, 1), dtype=int)
+    while size < n:
+        A = np.zeros((size, size), dtype=int)
+        A[-1, :] = 1
+        B = np.block([[B, np.zeros((size, size), dtype=int)], [A, B]])
+        size *= 2
+    return B[:n, :n]
+
+
+def permutation(A):
+    """P with P e_n = e_{A n}: an occupation-basis operator O becomes P O P^T."""
+    n = A.shape[0]
+    dim = 1 << n
+    P = np.zeros((dim, dim))
+    for occ in range(dim):
+        v = np.array([(occ >> j) & 1 for j in range(n)])
+        b = (A @ v) % 2
+        P[int(sum(int(b[q]) << q for q in range(n))), occ] = 1.0
+    return P
+
+
+def pauli_matrix(text, n):
+    """Dense matrix of a sparse Pauli word ("X0 Y1 Z5"), qubit q = bit q."""
+    I2 = np.eye(2)
+    mats = {"X": np.array([[0, 1], [1, 0]], dtype=complex), "Y": np.array([[0, -1j], [1j, 0]]),
+            "Z": np.array([[1, 0], [0, -1]], dtype=complex)}
+    letters = {}
+    if text.strip() != "I":
+        for tok in text.split():
+            letters[int(tok[1:])] = tok[0]
+    M = np.ones((1, 1), dtype=complex)
+    for q in reversed(range(n)):  # kron(high, ..., low): qubit 0 is the lowest bit
+        M = np.kron(M, mats[letters[q]] if q in letters else I2)
+    return M
+
+
+def product_state(theta, phi):
+    psi = np.ones(1, dtype=complex)
+    for q in reversed(range(len(theta))):
+        psi = np.kron(psi, np.array([np.cos(theta[q] / 2), np.exp(1j * phi[q]) * np.sin(theta[q] / 2)]))
+    return psi
+
+
+def basis_state(bits):
+    n = len(bits)
+    psi = np.zeros(1 << n, dtype=complex)
+    psi[sum(1 << q for q in range(n) if bits[q] == "1")] = 1
+    return psi
+
+
+def driver(args):
+    """Run cairn's check driver; returns the parsed JSON (stderr passed through)."""
+    exe = os.path.join(os.environ.get("CAIRN_BUILDDIR", "."), "tests", "ref", "ans_driver")
+    out = subprocess.run([exe] + args, stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True)
+    if out.returncode != 0:
+        sys.stderr.write(out.stderr)
+        raise RuntimeError("ans_driver %s failed with status %d" % (" ".join(args), out.returncode))
+    return json.loads(out.stdout)
+
+
+def generator_unitary_family(g, nmodes, a, P):
+    """(A Hermitian, sign) with U(theta) = exp(i theta A) for generator g, built
+    here from its label: excitations and qubit excitations from their indices
+    (theta (K - K+) = i theta A), words from their Pauli text (exp(-i theta P/2))."""
+    kind = g["kind"]
+    if "from" in g:
+        frm, to = g["from"], g["to"]
+        if kind in ("qubit-single", "qubit-double"):
+            T = qubit_excitation(nmodes, frm, to)
+        else:
+            T = excitation(a, frm, to)
+            if g.get("spin_adapted"):
+                T = T + excitation(a, [f + 1 for f in frm], [t + 1 for t in to])
+        K = P @ (T - T.T) @ P.T
+        return -1j * K
+    return -0.5 * pauli_matrix(g["text"], nmodes)
+
+
+def fd_gradient(A, H, psi, h=1e-3, eig=None):
+    """Five-point central difference of E(theta) = <psi|U+ H U|psi>, U = exp(i theta A).
+    eig: (w, V) of A when already known."""
+    w, V = eig if eig is not None else np.linalg.eigh(A)
+    c = V.conj().T @ psi
+
+    def E(t):
+        phi = V @ (np.exp(1j * t * w) * c)
+        return float(np.real(np.vdot(phi, H @ phi)))
+
+    return (-E(2 * h) + 8 * E(h) - 8 * E(-h) + E(-2 * h)) / (12 * h)
