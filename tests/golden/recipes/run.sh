@@ -35,10 +35,11 @@ for f in *.cairn; do
   fi
 done
 echo "$n bad recipes, $bad failed"
-# ... and the recipes of examples/ are good: no diagnostics, exit status 0.
+# ... and the recipes of examples/ are good: exit status 0, no errors (the
+# symmetry checker may warn about generators it drops).
 cd "$CAIRN_SRCDIR" || exit 1
 for f in examples/*.cairn; do
-  if ! "$CAIRN" check --color=never "$f" >"$tmp/out" 2>"$tmp/err" || [ -s "$tmp/err" ]; then
+  if ! "$CAIRN" check --color=never "$f" >"$tmp/out" 2>"$tmp/err" || grep -q "error:" "$tmp/err"; then
     echo "FAIL $f does not check:"; cat "$tmp/err"; bad=$((bad + 1))
   fi
 done
