@@ -14,6 +14,7 @@
 #include "cairn/diag.h"
 #include "cairn/front.h"
 #include "cairn/gates.h"
+#include "cairn/runner.h"
 #include "cairn/ir.h"
 #include "cairn/json.h"
 #include "cairn/util.h"
@@ -172,19 +173,16 @@ static cJSON *counts_json(const char *src, const ans_circuit *c, const gate_coun
   return o;
 }
 
-/* Wiring point for the recipe pipeline: the checked recipe (point `point`
- * of a scan) to its rotation program (chemistry -> Hamiltonian -> generators
- * -> screening and order).  Until the generator stage is part of the build, a
- * recipe cannot be lowered here and the command says so. */
+/* The checked recipe (point `point` of a scan) to its rotation program:
+ * chemistry -> Hamiltonian -> generators -> screening and order (runner.h). */
 static int recipe_circuit(const ir_recipe *r, int point, diag_ctx *d, ans_circuit *c) {
-  (void)point;
-  (void)d;
-  (void)c;
-  fprintf(stderr,
-          "cairn build: %s: lowering a recipe needs the generator stage of the pipeline, which is not in this "
-          "build yet; lower a rotation program with --program FILE.json\n",
-          r->path);
-  return 2;
+  int npoints = r->npoints > 0 ? r->npoints : 1;
+  if (point < 0 || point >= npoints) {
+    fprintf(stderr, "cairn build: %s has %d point%s; --point %d is out of range\n", r->path, npoints,
+            npoints == 1 ? "" : "s", point);
+    return 2;
+  }
+  return run_circuit(r, point, d, c) == 0 ? 0 : 1;
 }
 
 int cmd_build(const cmd_env *env, int argc, char **argv) {
