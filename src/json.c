@@ -11,21 +11,11 @@
 
 cJSON *json_number(double x) { return cJSON_CreateNumber(x); }
 
-char *json_print(const cJSON *j) {
-  /* cJSON prints 15 significant digits and falls back to 17 when that does
-   * not read back exactly, so numbers survive a round trip. */
-  char *s = cJSON_Print(j);
-  if (!s) {
-    fprintf(stderr, "cairn: out of memory printing JSON\n");
-    exit(2);
-  }
-  return s;
-}
-
-/* cJSON's printer accepts a 15-digit spelling that reads back only within an
- * epsilon (0.7794640752287191 prints as 0.779464075228719).  Here the tree is
- * copied and every finite number turned into raw text: the shortest spelling
- * that reads back exactly (integers as integers: 10, not 1e1). */
+/* Numbers go out in the shortest spelling that reads back exactly: cJSON's own
+ * printer accepts a 15-digit spelling that reads back only within an epsilon
+ * (0.7794640752287191 prints as 0.779464075228719).  The tree is copied and
+ * every finite number turned into raw text before printing; integers are
+ * spelled as integers (10, not 1e1). */
 static void exact_numbers(cJSON *n) {
   for (; n; n = n->next) {
     double x = n->valuedouble;
@@ -40,15 +30,19 @@ static void exact_numbers(cJSON *n) {
   }
 }
 
-char *json_print_exact(const cJSON *j) {
+char *json_print(const cJSON *j) {
   cJSON *copy = cJSON_Duplicate(j, 1);
   if (!copy) {
     fprintf(stderr, "cairn: out of memory printing JSON\n");
     exit(2);
   }
   exact_numbers(copy);
-  char *s = json_print(copy);
+  char *s = cJSON_Print(copy);
   cJSON_Delete(copy);
+  if (!s) {
+    fprintf(stderr, "cairn: out of memory printing JSON\n");
+    exit(2);
+  }
   return s;
 }
 

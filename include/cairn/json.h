@@ -32,9 +32,5 @@ cJSON *json_number(double x);
 /* Print a tree with 17-significant-digit numbers, deterministic layout;
  * malloc'd text, caller frees. */
 char *json_print(const cJSON *j);
-/* Like json_print, but every number is spelled the shortest way that reads
- * back to the same double (cJSON's own printer rounds within an epsilon:
- * 0.7794640752287191 comes out as 0.779464075228719). */
-char *json_print_exact(const cJSON *j);
 
 #endif

@@ -52,7 +52,7 @@ static int show_generators(const ir_recipe *r, diag_ctx *d, const show_opts *o) 
 
 /* ---- the qubit Hamiltonian ---- */
 
-/* Numbers are printed by json_print_exact in the shortest spelling that reads back
+/* Numbers are printed by json_print in the shortest spelling that reads back
  * exactly (json.h). */
 static cJSON *num(double x) { return json_number(x); }
 
@@ -230,7 +230,7 @@ static int show_hamiltonian(const ir_recipe *r, diag_ctx *d, const show_opts *o)
       cJSON_AddItemToObject(top, "points", points);
       points = NULL;
     }
-    char *s = json_print_exact(top);
+    char *s = json_print(top);
     puts(s);
     free(s);
     cJSON_Delete(top);

@@ -106,7 +106,7 @@ int main(int argc, char **argv) {
     pauli_sum_free(&ht);
     qubit_taper_free(&t);
   }
-  char *text = json_print_exact(o);
+  char *text = json_print(o);
   fputs(text, stdout);
   fputc('\n', stdout);
   free(text);
