@@ -66,6 +66,10 @@ double sim_energy_grad(sim_engine *e, const double *theta, double *grad);
 /* Make the current state |psi(theta)>; returns it (owned by the engine, valid
  * until the next call on e). */
 const sv_state *sim_prepare(sim_engine *e, const double *theta);
+/* The circuit's initial parameter values (ans_circuit.param_init: optimized
+ * mean-field angles for reference parameters, 0 for generator amplitudes;
+ * all 0 when the circuit has none).  nparams values, owned by the engine. */
+const double *sim_engine_initial(const sim_engine *e);
 /* Evaluations so far (sim_energy and sim_energy_grad calls). */
 long sim_engine_evaluations(const sim_engine *e);
 
@@ -76,6 +80,11 @@ sv_op *sim_observable(const sim_engine *e, const pauli_sum *s, char *err, size_t
  * sim_prepare call (re-prepared first when a gradient pass unwound it); the
  * real part (the sums are Hermitian). */
 double sim_expect(sim_engine *e, const sv_op *op);
+
+/* objective += mu (X - x0)^2 for a Hermitian X (N, S_z, S^2): the term of
+ * `keep ... penalty mu`, whose gradient the adjoint pass then includes.  The
+ * result is canonical (pauli_sum_canonicalize, exact zeros dropped). */
+void sim_add_penalty(pauli_sum *objective, const pauli_sum *X, double x0, double mu);
 
 /* ---- optimizer --------------------------------------------------------------- */
 
@@ -92,10 +101,12 @@ typedef struct sim_opt_options {
   ir_method method;        /* lbfgs (default), slsqp, bobyqa, cobyla, nelder-mead */
   double tolerance;        /* stop when the objective changes less than this (hartree); <= 0: 1e-8 */
   int max_evals;           /* most objective evaluations per start; <= 0: 1000 */
-  /* Starts: first the given vectors in order (a NULL vector = all zeros), then
-   * `nrandom` random ones, each uniform in [-random_range, random_range]
-   * radians per parameter from util_rng seeded by (seed, start index), so a
-   * start does not depend on how many others there are. */
+  /* Starts: first the given vectors in order (a NULL vector = the circuit's
+   * initial values, sim_engine_initial: zero amplitudes, mean-field angles as
+   * optimized for the reference), then `nrandom` random ones: the initial
+   * values plus, per parameter, a uniform offset in [-random_range,
+   * random_range] radians from util_rng seeded by (seed, random start index),
+   * so a start does not depend on how many others there are. */
   const double *const *given;
   const char *const *given_label; /* names for the report ("zeros", "warm"), may be NULL */
   int ngiven;

@@ -31,6 +31,7 @@ struct sim_engine {
   sv_state psi;    /* the state (phi during the backward pass) */
   sv_state lam;    /* lambda of the backward pass */
   double *theta;   /* parameters of the last forward pass */
+  double *initial; /* the circuit's initial parameter values (param_init) */
   int valid;       /* psi holds |psi(theta)> */
   long evals;
 };
@@ -113,6 +114,8 @@ sim_engine *sim_engine_new(const ans_circuit *c, const pauli_sum *objective, cha
   e->nparams = c->nparams;
   e->obj = op;
   e->theta = xcalloc(c->nparams ? (size_t)c->nparams : 1, sizeof *e->theta);
+  e->initial = xcalloc(c->nparams ? (size_t)c->nparams : 1, sizeof *e->initial);
+  if (c->param_init && c->nparams) memcpy(e->initial, c->param_init, (size_t)c->nparams * sizeof *e->initial);
   sv_state_alloc(&e->psi, n);
   sv_state_alloc(&e->lam, n);
   return e;
@@ -123,6 +126,7 @@ void sim_engine_free(sim_engine *e) {
   for (size_t k = 0; k < e->nrot; k++) sv_gen_free(e->rot[k].gen);
   free(e->rot);
   free(e->theta);
+  free(e->initial);
   sv_op_free(e->obj);
   sv_state_free(&e->psi);
   sv_state_free(&e->lam);
@@ -134,6 +138,7 @@ int sim_engine_params(const sim_engine *e) { return e->nparams; }
 size_t sim_engine_rotations(const sim_engine *e) { return e->nrot_in; }
 size_t sim_engine_steps(const sim_engine *e) { return e->nrot; }
 long sim_engine_evaluations(const sim_engine *e) { return e->evals; }
+const double *sim_engine_initial(const sim_engine *e) { return e->initial; }
 
 static double angle(const sim_rot *r, const double *theta) {
   return r->param >= 0 ? theta[r->param] * r->mult : r->mult;
@@ -204,4 +209,19 @@ sv_op *sim_observable(const sim_engine *e, const pauli_sum *s, char *err, size_t
 double sim_expect(sim_engine *e, const sv_op *op) {
   if (!e->valid) forward(e, e->theta);
   return creal(sv_op_apply(op, &e->psi, &e->lam));
+}
+
+/* (X - x0)^2 = X^2 - 2 x0 X + x0^2, by the Pauli algebra (one product). */
+void sim_add_penalty(pauli_sum *objective, const pauli_sum *X, double x0, double mu) {
+  pauli_sum d, d2;
+  pauli_sum_init(&d, X->n);
+  pauli_sum_copy(&d, X);
+  pauli_sum_add_identity(&d, -x0);
+  pauli_sum_canonicalize(&d, 0.0);
+  pauli_sum_init(&d2, X->n);
+  pauli_sum_mul(&d2, &d, &d);
+  pauli_sum_add_sum(objective, &d2, mu);
+  pauli_sum_canonicalize(objective, 0.0);
+  pauli_sum_free(&d);
+  pauli_sum_free(&d2);
 }

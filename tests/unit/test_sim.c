@@ -424,6 +424,71 @@ static void test_engine_refuses(void **state) {
   assert_true(sim_engine_bytes(20, 100) > 2 * sv_vector_bytes(20));
 }
 
+/* mu (N - x0)^2 with the Jordan-Wigner number operator N = sum_q (1 - Z_q)/2
+ * (common practice): on a basis state with k ones it is mu (k - x0)^2, and
+ * the objective H + penalty is H's value plus that. */
+static void test_penalty(void **state) {
+  (void)state;
+  const int n = 4;
+  pauli_sum N;
+  pauli_sum_init(&N, n);
+  for (int q = 0; q < n; q++) {
+    uint64_t x = 0, z = (uint64_t)1 << q;
+    pauli_sum_add(&N, &x, &z, -0.5);
+    pauli_sum_add_identity(&N, 0.5);
+  }
+  pauli_sum_canonicalize(&N, 0.0);
+  for (uint64_t bits = 0; bits < 16; bits++) {
+    pauli_sum obj;
+    pauli_sum_init(&obj, n);
+    pauli_sum_add_text(&obj, "Z0", 0.25);
+    sim_add_penalty(&obj, &N, 2.0, 0.5);
+    ans_circuit c;
+    ans_circuit_init(&c, n);
+    c.init[0] = bits;
+    char err[300];
+    sim_engine *e = sim_engine_new(&c, &obj, err, sizeof err);
+    int k = __builtin_popcountll(bits);
+    double want = ((bits & 1) ? -0.25 : 0.25) + 0.5 * (k - 2.0) * (k - 2.0);
+    assert_true(fabs(sim_energy(e, NULL) - want) < 1e-14);
+    sim_engine_free(e);
+    ans_circuit_free(&c);
+    pauli_sum_free(&obj);
+  }
+  pauli_sum_free(&N);
+}
+
+/* Starts begin at the circuit's initial values (mean-field angles): the
+ * "zeros" start is param_init, random starts are offsets from it. */
+static void test_initial_values(void **state) {
+  (void)state;
+  ans_circuit c;
+  pauli_sum H;
+  double ground;
+  one_qubit_problem(&c, &H, &ground);
+  c.param_init[0] = 2.0;
+  c.param_init[1] = -1.0;
+  char err[300];
+  sim_engine *e = sim_engine_new(&c, &H, err, sizeof err);
+  assert_true(sim_engine_initial(e)[0] == 2.0 && sim_engine_initial(e)[1] == -1.0);
+  sim_opt_options o;
+  sim_opt_options_init(&o);
+  o.max_evals = 3;
+  o.nrandom = 2;
+  sim_opt_result res;
+  assert_int_equal(sim_optimize(e, &o, &res, err, sizeof err), 0);
+  assert_true(res.start[0].theta0[0] == 2.0 && res.start[0].theta0[1] == -1.0);
+  for (int k = 1; k < 3; k++) {
+    assert_true(fabs(res.start[k].theta0[0] - 2.0) <= SIM_RANDOM_RANGE);
+    assert_true(fabs(res.start[k].theta0[1] + 1.0) <= SIM_RANDOM_RANGE);
+    assert_true(res.start[k].theta0[0] != 2.0);
+  }
+  sim_opt_result_free(&res);
+  sim_engine_free(e);
+  ans_circuit_free(&c);
+  pauli_sum_free(&H);
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_gradient_finite_differences),
@@ -434,6 +499,8 @@ int main(void) {
       cmocka_unit_test(test_given_start),
       cmocka_unit_test(test_no_parameters),
       cmocka_unit_test(test_engine_refuses),
+      cmocka_unit_test(test_penalty),
+      cmocka_unit_test(test_initial_values),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }
