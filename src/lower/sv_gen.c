@@ -159,7 +159,7 @@ static double complex gen_pass(const sv_gen *g, double *restrict a, double *rest
     const double fr = sn * s->ei, fi = -sn * s->er, qr = -sn * s->ei, qi = -sn * s->er;
     const double er = s->er, ei = s->ei;
     const double *row = g->tau + (size_t)s->u * 64;
-#pragma omp parallel for schedule(static) if (nblk * B >= SV_PAR_MIN)
+#pragma omp parallel for schedule(static) if (nblk * B >= 2 * SV_PAR_MIN)
     for (uint64_t ch = 0; ch < nch; ch++) {
       uint64_t b0 = ch * cb, b1 = b0 + cb < nblk ? b0 + cb : nblk;
       uint64_t m = sv_deposit(b0, g->mid);

@@ -209,8 +209,8 @@ sv_op *sv_op_new(const pauli_sum *s, char *err, size_t errlen) {
   sv_op *op = xcalloc(1, sizeof *op);
   op->n = s->n;
   op->nterms = nt;
-  /* chunk bits: leave room below them for the split bits and a block */
-  int top = s->n - SV_LOG_BLOCK - SV_SBITS;
+  /* chunk bits: room below them for a block and the split bits of most groups */
+  int top = s->n - SV_LOG_BLOCK - 4; /* groups with more than 4 split bits get smaller blocks */
   op->top = top < 0 ? 0 : top > OP_TOP ? OP_TOP : top;
   uint64_t topm = op->top ? (((uint64_t)1 << op->top) - 1) << (s->n - op->top) : 0;
   op_build b = {0, 0, 0, 0};
@@ -454,7 +454,7 @@ static double complex op_run(const sv_op *op, const sv_state *psi, sv_state *out
   const double *v = (const double *)psi->a;
   double *o = out ? (double *)out->a : NULL;
   uint64_t rows = psi->dim >> op->top;
-#pragma omp parallel if (psi->dim >= SV_PAR_MIN && nch > 1)
+#pragma omp parallel if (psi->dim >= SV_OP_PAR_MIN && nch > 1)
   {
     double h[2 * 64];
 #pragma omp for schedule(dynamic, 1)
