@@ -73,6 +73,17 @@ const double *sim_engine_initial(const sim_engine *e);
 /* Evaluations so far (sim_energy and sim_energy_grad calls). */
 long sim_engine_evaluations(const sim_engine *e);
 
+/* Gradients for adaptive growth: for each candidate generator c (words
+ * off[c] .. off[c]+len[c]-1 of `words`, real coefficients m_k, as in
+ * ans_pool), the derivative at t = 0 of the objective with exp(-i t G_c/2)
+ * appended after the program at theta:
+ *     g_c = (i/2) <psi|[G_c, O]|psi> = sum_k m_k Im <O psi|P_k|psi>.
+ * One forward pass and one O|psi>, then one read-only pass per word (one per
+ * candidate when its words fuse).  Returns 0, or -1 with a message in err
+ * (a word wider than the register). */
+int sim_candidate_gradients(sim_engine *e, const double *theta, const pauli_sum *words, const size_t *off,
+                            const size_t *len, size_t ncand, double *out, char *err, size_t errlen);
+
 /* A compiled observable (N, S_z, S^2, H without penalties, ...) for
  * expectation values on the current state. */
 sv_op *sim_observable(const sim_engine *e, const pauli_sum *s, char *err, size_t errlen);

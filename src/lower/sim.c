@@ -198,6 +198,49 @@ double sim_energy_grad(sim_engine *e, const double *theta, double *grad) {
   return E;
 }
 
+int sim_candidate_gradients(sim_engine *e, const double *theta, const pauli_sum *words, const size_t *off,
+                            const size_t *len, size_t ncand, double *out, char *err, size_t errlen) {
+  if (words->n != e->n) {
+    snprintf(err, errlen, "the candidates act on %d qubits but the register has %d", words->n, e->n);
+    return -1;
+  }
+  forward(e, theta);
+  sv_op_apply(e->obj, &e->psi, &e->lam);
+  uint64_t *x = NULL, *z = NULL;
+  double *m = NULL;
+  size_t cap = 0;
+  for (size_t c = 0; c < ncand; c++) {
+    if (len[c] > cap) {
+      cap = len[c];
+      x = xrealloc(x, cap * sizeof *x);
+      z = xrealloc(z, cap * sizeof *z);
+      m = xrealloc(m, cap * sizeof *m);
+    }
+    for (size_t k = 0; k < len[c]; k++) {
+      size_t t = off[c] + k;
+      if (t >= words->len || sv_word_masks(words, t, &x[k], &z[k]) != 0) {
+        snprintf(err, errlen, "candidate %zu refers to a word the sum does not have", c);
+        free(x), free(z), free(m);
+        return -1;
+      }
+      m[k] = creal(words->c[t]);
+    }
+    sv_gen *g = len[c] >= 2 && len[c] <= 64 ? sv_gen_new(e->n, (int)len[c], x, z, m) : NULL;
+    double complex w = 0;
+    if (g) {
+      w = sv_gen_inner(g, &e->lam, &e->psi);
+      sv_gen_free(g);
+    } else {
+      for (size_t k = 0; k < len[c]; k++) w += m[k] * sv_word_inner(&e->lam, x[k], z[k], &e->psi);
+    }
+    out[c] = cimag(w);
+  }
+  free(x);
+  free(z);
+  free(m);
+  return 0;
+}
+
 sv_op *sim_observable(const sim_engine *e, const pauli_sum *s, char *err, size_t errlen) {
   if (s->n != e->n) {
     snprintf(err, errlen, "the observable acts on %d qubits but the register has %d", s->n, e->n);

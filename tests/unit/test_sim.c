@@ -489,6 +489,67 @@ static void test_initial_values(void **state) {
   pauli_sum_free(&H);
 }
 
+/* Candidate gradients equal the central difference of the program with the
+ * candidate appended under a new parameter at 0 (an excitation that fuses, a
+ * single word, and a two-word candidate that does not fuse). */
+static void test_candidate_gradients(void **state) {
+  (void)state;
+  util_rng r;
+  util_rng_seed(&r, 25);
+  ans_circuit base;
+  ans_circuit_init(&base, 8);
+  base.init[0] = 0x0f;
+  const int f1[] = {0, 1}, t1[] = {4, 5};
+  push_excitation(&base, 2, f1, t1);
+  pauli_sum H;
+  random_hermitian(&r, 8, 50, &H);
+  /* candidates: the words of a double, of a single, and "X2 Y7" + "Z0 Y3" */
+  ans_circuit tmp;
+  ans_circuit_init(&tmp, 8);
+  const int f2[] = {2, 3}, t2[] = {6, 7}, f3[] = {1}, t3[] = {5};
+  push_excitation(&tmp, 2, f2, t2);
+  push_excitation(&tmp, 1, f3, t3);
+  pauli_sum words;
+  pauli_sum_init(&words, 8);
+  for (size_t k = 0; k < tmp.nrot; k++)
+    pauli_sum_add(&words, pauli_sum_x(&tmp.words, (size_t)tmp.rot[k].word),
+                  pauli_sum_z(&tmp.words, (size_t)tmp.rot[k].word), tmp.rot[k].mult);
+  pauli_sum_add_text(&words, "X2 Y7", 0.7);
+  pauli_sum_add_text(&words, "Z0 Y3", -0.4);
+  size_t off[3] = {0, 8, 10}, len[3] = {8, 2, 2};
+  char err[300];
+  sim_engine *e = sim_engine_new(&base, &H, err, sizeof err);
+  double theta[1] = {0.3}, g[3];
+  assert_int_equal(sim_candidate_gradients(e, theta, &words, off, len, 3, g, err, sizeof err), 0);
+  for (int c = 0; c < 3; c++) {
+    ans_circuit ext;
+    ans_circuit_init(&ext, 8);
+    ext.init[0] = base.init[0];
+    ans_gen_info gi = {.kind = ANS_WORD, .text = "x", .rule = -1};
+    int gg = ans_circuit_add_gen(&ext, &gi);
+    int p0 = ans_circuit_add_param(&ext, gg), p1 = ans_circuit_add_param(&ext, gg);
+    for (size_t k = 0; k < base.nrot; k++)
+      ans_circuit_push(&ext,
+                       ans_circuit_word(&ext, pauli_sum_x(&base.words, (size_t)base.rot[k].word),
+                                        pauli_sum_z(&base.words, (size_t)base.rot[k].word)),
+                       p0, base.rot[k].mult, gg);
+    for (size_t k = off[c]; k < off[c] + len[c]; k++)
+      ans_circuit_push(&ext, ans_circuit_word(&ext, pauli_sum_x(&words, k), pauli_sum_z(&words, k)), p1,
+                       creal(words.c[k]), gg);
+    sim_engine *e2 = sim_engine_new(&ext, &H, err, sizeof err);
+    double tp[2] = {0.3, 1e-5}, tm[2] = {0.3, -1e-5};
+    double fd = (sim_energy(e2, tp) - sim_energy(e2, tm)) / 2e-5;
+    assert_true(fabs(fd - g[c]) < 1e-7);
+    sim_engine_free(e2);
+    ans_circuit_free(&ext);
+  }
+  sim_engine_free(e);
+  ans_circuit_free(&base);
+  ans_circuit_free(&tmp);
+  pauli_sum_free(&words);
+  pauli_sum_free(&H);
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_gradient_finite_differences),
@@ -500,6 +561,7 @@ int main(void) {
       cmocka_unit_test(test_no_parameters),
       cmocka_unit_test(test_engine_refuses),
       cmocka_unit_test(test_penalty),
+      cmocka_unit_test(test_candidate_gradients),
       cmocka_unit_test(test_initial_values),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
