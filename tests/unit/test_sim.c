@@ -584,6 +584,47 @@ static void test_candidate_gradients(void **state) {
   pauli_sum_free(&H);
 }
 
+typedef struct progress_log {
+  long calls, last_eval[3];
+  int last_start;
+  double best_seen;
+} progress_log;
+
+static void on_progress(void *user, const sim_progress *p) {
+  progress_log *l = user;
+  l->calls++;
+  assert_true(p->start >= l->last_start && p->start < p->nstarts && p->nstarts == 3);
+  l->last_start = p->start;
+  assert_int_equal(p->evaluation, l->last_eval[p->start] + 1); /* one call per evaluation, in order */
+  l->last_eval[p->start] = p->evaluation;
+  assert_true(p->best <= p->energy);
+}
+
+/* The progress hook sees every evaluation of every start, in order. */
+static void test_progress_hook(void **state) {
+  (void)state;
+  ans_circuit c;
+  pauli_sum H;
+  double ground;
+  one_qubit_problem(&c, &H, &ground);
+  char err[300];
+  sim_engine *e = sim_engine_new(&c, &H, err, sizeof err);
+  progress_log log = {0, {0, 0, 0}, 0, 0};
+  sim_opt_options o;
+  sim_opt_options_init(&o);
+  o.nrandom = 2;
+  o.progress = on_progress;
+  o.progress_user = &log;
+  sim_opt_result res;
+  assert_int_equal(sim_optimize(e, &o, &res, err, sizeof err), 0);
+  assert_int_equal(log.calls, res.evals);
+  for (int k = 0; k < 3; k++) assert_int_equal(log.last_eval[k], res.start[k].evals);
+  sim_opt_result_free(&res);
+  sim_engine_free(e);
+  ans_circuit_free(&c);
+  pauli_sum_free(&H);
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_gradient_finite_differences),
@@ -595,6 +636,7 @@ int main(void) {
       cmocka_unit_test(test_no_parameters),
       cmocka_unit_test(test_engine_refuses),
       cmocka_unit_test(test_penalty),
+      cmocka_unit_test(test_progress_hook),
       cmocka_unit_test(test_candidate_gradients),
       cmocka_unit_test(test_initial_values),
   };
