@@ -37,7 +37,8 @@
 
 typedef struct sim_engine sim_engine;
 
-/* Vectors the engine allocates (for memory estimates before building). */
+/* Vectors the engine allocates (for memory estimates before building); it
+ * also tabulates the objective's diagonal (half a vector, SV_DIAG_BYTES). */
 #define SIM_VECTORS 2
 
 /* Memory the engine needs for circuit c and an objective of `terms` terms. */

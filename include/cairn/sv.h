@@ -99,6 +99,13 @@ uint64_t sv_op_bytes(const sv_op *op); /* memory of the tables */
 /* Upper bound of sv_op_bytes for a sum of `terms` terms, for memory checks
  * before compiling. */
 uint64_t sv_op_bytes_bound(size_t terms);
+/* Tabulate the diagonal part (the group of X mask 0) once, 8 * 2^n bytes
+ * (a real diagonal only; a complex one stays computed), so that each
+ * application reads it instead of summing its terms.  Returns 0, or -1 when
+ * there is nothing to cache.  Callers count SV_DIAG_BYTES(n) in their memory
+ * check first. */
+int sv_op_cache_diagonal(sv_op *op);
+#define SV_DIAG_BYTES(n) ((uint64_t)8 << (n))
 /* <psi|op|psi> (not normalized by <psi|psi>). */
 double complex sv_op_expect(const sv_op *op, const sv_state *psi);
 /* out = op psi (out != psi, same n).  Returns <psi|op|psi>, which the same

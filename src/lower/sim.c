@@ -37,7 +37,7 @@ struct sim_engine {
 };
 
 uint64_t sim_engine_bytes(int nqubits, size_t terms) {
-  return (uint64_t)SIM_VECTORS * sv_vector_bytes(nqubits) + sv_op_bytes_bound(terms);
+  return (uint64_t)SIM_VECTORS * sv_vector_bytes(nqubits) + sv_op_bytes_bound(terms) + SV_DIAG_BYTES(nqubits);
 }
 
 /* Replace each maximal run (>= 2) of consecutive rotations with one parameter
@@ -79,7 +79,8 @@ sim_engine *sim_engine_new(const ans_circuit *c, const pauli_sum *objective, cha
     return NULL;
   }
   /* Width and memory first: nothing large is allocated before this. */
-  if (sv_mem_check(n, SIM_VECTORS, sv_op_bytes_bound(objective->len), err, errlen) != 0) return NULL;
+  if (sv_mem_check(n, SIM_VECTORS, sv_op_bytes_bound(objective->len) + SV_DIAG_BYTES(n), err, errlen) != 0)
+    return NULL;
   for (int k = 1; k < pauli_nwords(n); k++)
     if (c->init[k]) {
       snprintf(err, errlen, "the initial state sets a qubit beyond the register");
@@ -105,6 +106,7 @@ sim_engine *sim_engine_new(const ans_circuit *c, const pauli_sum *objective, cha
     free(rot);
     return NULL;
   }
+  sv_op_cache_diagonal(op); /* counted in the memory check above; fails harmlessly on complex diagonals */
   sim_engine *e = xcalloc(1, sizeof *e);
   e->n = n;
   e->init = c->init[0];
