@@ -13,7 +13,9 @@
  *     dE/dtheta_p = sum over rotations k using p of  mult_k Im <lambda_k|P_k|phi_k>,
  * phi_k = R_k..R_1|init>, lambda_k = R_{k+1}^dag..R_K^dag O|psi>.  Cost: about
  * 2 * (rotations) passes over 2^n amplitudes plus one application of O; two
- * vectors of memory.
+ * vectors of memory (and the objective's diagonal, half a vector).  A run of
+ * rotations with one parameter and one X mask (a Jordan-Wigner excitation's
+ * words) is one fused step that touches only the pairs it connects (sv_gen).
  *
  * This is a noise-free statevector simulation: energies are what an ideal
  * device with exact expectation values would give, not a hardware estimate.
@@ -41,7 +43,7 @@ typedef struct sim_engine sim_engine;
  * also tabulates the objective's diagonal (half a vector, SV_DIAG_BYTES). */
 #define SIM_VECTORS 2
 
-/* Memory the engine needs for circuit c and an objective of `terms` terms. */
+/* Memory the engine needs for n qubits and an objective of `terms` terms. */
 uint64_t sim_engine_bytes(int nqubits, size_t terms);
 
 /* Build an engine for circuit c with objective O (same qubit count).  Checks
@@ -57,8 +59,9 @@ size_t sim_engine_rotations(const sim_engine *e);
  * parameter and an X mask (a Jordan-Wigner excitation becomes one step). */
 size_t sim_engine_steps(const sim_engine *e);
 
-/* Objective at theta (nparams values): forward pass, one expectation value.
- * Leaves |psi(theta)> as the engine's current state. */
+/* Objective at theta (nparams values): forward pass, one application of O
+ * (the same sums as sim_energy_grad, so the same bits).  Leaves |psi(theta)>
+ * as the engine's current state. */
 double sim_energy(sim_engine *e, const double *theta);
 /* Objective and its gradient (grad: nparams values).  Afterwards the current
  * state is no longer |psi(theta)> (the backward pass unwinds it); call
@@ -158,7 +161,9 @@ typedef struct sim_start {
   sim_stop stop;
   int converged;        /* 1 for SIM_STOP_TOLERANCE and SIM_STOP_NO_PARAMS */
   int nlopt_code;       /* NLopt's result code (0 for SIM_STOP_NO_PARAMS) */
-  double *trace;        /* evals entries: objective at each evaluation, in order */
+  double *trace;        /* evals entries: objective at each evaluation, in order
+                           (NLopt does not expose iterations; line searches show as
+                           evaluations that did not improve) */
   double seconds;
 } sim_start;
 
