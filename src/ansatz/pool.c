@@ -182,11 +182,17 @@ void ans_add_full(ans_build *b, const ans_gen_info *info, pauli_sum *G) {
   const qubit_taper *tp = b->p->taper;
   if (tp && tp->nsym > 0) {
     int nw = pauli_nwords(tp->nqubits);
-    for (int i = 0; i < tp->nsym; i++)
+    const ir_rule_kind rk = b->r->rules[b->rule].kind;
+    int explicit = rk == IR_RULE_WORD || rk == IR_RULE_EXCITE, dropped = 0;
+    /* a rule-made generator is counted under the first symmetry it breaks,
+     * an explicit one under every one (its error names them all) */
+    for (int i = 0; i < tp->nsym && (explicit || !dropped); i++)
       if (!commutes_with_z(nw, G, tp->tau + (size_t)i * (size_t)nw)) {
-        if (t->z2_drop[i]++ == 0 && !t->z2_text) t->z2_text = xstrdup(info->text ? info->text : "");
-        return;
+        if (!t->z2_text) t->z2_text = xstrdup(info->text ? info->text : "");
+        t->z2_drop[i]++;
+        dropped = 1;
       }
+    if (dropped) return;
     pauli_sum Gt;
     pauli_sum_init(&Gt, b->p->nqubits);
     if (qubit_taper_apply(tp, G, &Gt) != 0) {

@@ -282,29 +282,44 @@ void ans_rule_messages(ans_build *b) {
     ans_tally *t = &b->tally[i];
     char *rt = rule_text(b, rule);
     symmetry_errors(b, i);
-    if (tp)
+    if (tp && is_explicit(rule)) {
+      util_buf syms = {0}, words = {0};
+      int nf = 0, last = -1;
+      for (int k = 0; k < tp->nsym; k++)
+        if (t->z2_drop[k]) nf++, last = k;
+      for (int k = 0, seen = 0; k < tp->nsym; k++) {
+        if (!t->z2_drop[k]) continue;
+        char *zt = z_text(tp->nqubits, tp->tau + (size_t)k * (size_t)pauli_nwords(tp->nqubits));
+        const char *why = tp->why && tp->why[k] ? tp->why[k] : "a symmetry of the Hamiltonian";
+        util_buf_printf(&syms, "%s%s (%s)", seen == 0 ? "" : k == last ? " and " : ", ", zt, why);
+        util_buf_printf(&words, "%s%s", seen == 0 ? "" : k == last ? " and " : ", ", zt);
+        seen++;
+        free(zt);
+      }
+      if (nf) {
+        diag_report(d, DIAG_ERROR, rule->span,
+                    "`%s` does not commute with the tapered symmetr%s %s, so it cannot act on the tapered register", rt,
+                    nf == 1 ? "y" : "ies", syms.s);
+        diag_note(d, r->encoding_span, "the encoding removes %s here", nf == 1 ? "that symmetry" : "those symmetries");
+        diag_help(d, "drop `taper`, or use a generator that commutes with %s", words.s);
+        t->had_error = 1;
+      }
+      util_buf_free(&syms);
+      util_buf_free(&words);
+    } else if (tp) {
       for (int k = 0; k < tp->nsym; k++) {
         if (!t->z2_drop[k]) continue;
         char *zt = z_text(tp->nqubits, tp->tau + (size_t)k * (size_t)pauli_nwords(tp->nqubits));
         const char *why = tp->why && tp->why[k] ? tp->why[k] : "a symmetry of the Hamiltonian";
-        if (is_explicit(rule)) {
-          diag_report(d, DIAG_ERROR, rule->span,
-                      "`%s` does not commute with the tapered symmetry %s (%s), so it cannot act on the tapered "
-                      "register",
-                      rt, zt, why);
-          diag_note(d, r->encoding_span, "the encoding removes that symmetry here");
-          diag_help(d, "drop `taper`, or use a generator that commutes with %s", zt);
-          t->had_error = 1;
-        } else {
-          diag_report(d, DIAG_WARNING, rule->span,
-                      "%zu generator%s of `%s` do%s not commute with the tapered symmetry %s (%s) and %s dropped",
-                      t->z2_drop[k], t->z2_drop[k] == 1 ? "" : "s", rt, t->z2_drop[k] == 1 ? "es" : "",
-                      zt, why, t->z2_drop[k] == 1 ? "is" : "are");
-          diag_note(d, r->encoding_span, "the encoding removes that symmetry here");
-          if (t->z2_text) diag_note(d, DIAG_NOWHERE, "the first is %s", t->z2_text);
-        }
+        diag_report(d, DIAG_WARNING, rule->span,
+                    "%zu generator%s of `%s` do%s not commute with the tapered symmetry %s (%s) and %s dropped",
+                    t->z2_drop[k], t->z2_drop[k] == 1 ? "" : "s", rt, t->z2_drop[k] == 1 ? "es" : "", zt, why,
+                    t->z2_drop[k] == 1 ? "is" : "are");
+        diag_note(d, r->encoding_span, "the encoding removes that symmetry here");
+        if (t->z2_text) diag_note(d, DIAG_NOWHERE, "the first is %s", t->z2_text);
         free(zt);
       }
+    }
     if (t->vanished) {
       if (is_explicit(rule))
         diag_report(d, DIAG_WARNING, rule->span, "`%s` is the zero operator and is dropped", rt);
