@@ -154,9 +154,19 @@ static long append_gen(ans_build *b, const ans_gen_info *info, const pauli_sum *
 }
 
 /* Real coefficients: G is Hermitian by construction, so imaginary parts are
- * rounding only. */
+ * rounding only.  The identity word is dropped: exp(-i theta c I / 2) is only
+ * a global phase. */
 static void make_real(pauli_sum *G) {
-  for (size_t k = 0; k < G->len; k++) G->c[k] = creal(G->c[k]);
+  size_t m = 0;
+  for (size_t k = 0; k < G->len; k++) {
+    if (pauli_word_is_identity(G->nw, pauli_sum_x(G, k), pauli_sum_z(G, k))) continue;
+    if (m != k) {
+      memcpy(pauli_sum_x(G, m), pauli_sum_x(G, k), (size_t)G->nw * sizeof(uint64_t));
+      memcpy(pauli_sum_z(G, m), pauli_sum_z(G, k), (size_t)G->nw * sizeof(uint64_t));
+    }
+    G->c[m++] = creal(G->c[k]);
+  }
+  G->len = m;
 }
 
 static int commutes_with_z(int nw, const pauli_sum *G, const uint64_t *tau) {

@@ -307,17 +307,33 @@ void ans_rule_messages(ans_build *b) {
       util_buf_free(&syms);
       util_buf_free(&words);
     } else if (tp) {
-      for (int k = 0; k < tp->nsym; k++) {
-        if (!t->z2_drop[k]) continue;
-        char *zt = z_text(tp->nqubits, tp->tau + (size_t)k * (size_t)pauli_nwords(tp->nqubits));
-        const char *why = tp->why && tp->why[k] ? tp->why[k] : "a symmetry of the Hamiltonian";
-        diag_report(d, DIAG_WARNING, rule->span,
-                    "%zu generator%s of `%s` do%s not commute with the tapered symmetry %s (%s) and %s dropped",
-                    t->z2_drop[k], t->z2_drop[k] == 1 ? "" : "s", rt, t->z2_drop[k] == 1 ? "es" : "", zt, why,
-                    t->z2_drop[k] == 1 ? "is" : "are");
-        diag_note(d, r->encoding_span, "the encoding removes that symmetry here");
+      /* one warning per rule: how many, and under which symmetry (the first
+       * each generator breaks) */
+      size_t total = 0;
+      int nf = 0, last = -1;
+      for (int k = 0; k < tp->nsym; k++)
+        if (t->z2_drop[k]) total += t->z2_drop[k], nf++, last = k;
+      if (nf) {
+        util_buf what = {0};
+        for (int k = 0, seen = 0; k < tp->nsym; k++) {
+          if (!t->z2_drop[k]) continue;
+          char *zt = z_text(tp->nqubits, tp->tau + (size_t)k * (size_t)pauli_nwords(tp->nqubits));
+          const char *why = tp->why && tp->why[k] ? tp->why[k] : "a symmetry of the Hamiltonian";
+          if (nf == 1) util_buf_printf(&what, "the tapered symmetry %s (%s)", zt, why);
+          else util_buf_printf(&what, "%s%zu with %s (%s)", seen == 0 ? "" : k == last ? " and " : ", ", t->z2_drop[k], zt, why);
+          seen++;
+          free(zt);
+        }
+        if (nf == 1)
+          diag_report(d, DIAG_WARNING, rule->span, "%zu generator%s of `%s` do%s not commute with %s and %s dropped", total,
+                      total == 1 ? "" : "s", rt, total == 1 ? "es" : "", what.s, total == 1 ? "is" : "are");
+        else
+          diag_report(d, DIAG_WARNING, rule->span,
+                      "%zu generators of `%s` do not commute with the tapered symmetries and are dropped: %s", total, rt,
+                      what.s);
+        util_buf_free(&what);
+        diag_note(d, r->encoding_span, "the encoding removes %s here", nf == 1 ? "that symmetry" : "those symmetries");
         if (t->z2_text) diag_note(d, DIAG_NOWHERE, "the first is %s", t->z2_text);
-        free(zt);
       }
     }
     if (t->vanished) {
@@ -329,7 +345,8 @@ void ans_rule_messages(ans_build *b) {
     }
     if (t->vanished_taper) {
       if (is_explicit(rule))
-        diag_report(d, DIAG_WARNING, rule->span, "`%s` vanishes on the tapered register and is dropped", rt);
+        diag_report(d, DIAG_WARNING, rule->span,
+                    "`%s` vanishes on the tapered register (at most a global phase is left) and is dropped", rt);
       else
         diag_report(d, DIAG_WARNING, rule->span, "%zu generators of `%s` vanish on the tapered register and are dropped",
                     t->vanished_taper, rt);
@@ -352,7 +369,7 @@ void ans_rule_messages(ans_build *b) {
       if (t->tried == 0)
         diag_report(d, DIAG_WARNING, rule->span, "`%s` makes no generators for this reference and active space", rt);
       else if (!is_explicit(rule))
-        diag_report(d, DIAG_WARNING, rule->span, "no generator of `%s` survives (%zu made, all dropped)", rt,
+        diag_report(d, DIAG_WARNING, rule->span, "no generator of `%s` survives (%zu proposed, all dropped)", rt,
                     t->tried);
     }
     free(rt);
