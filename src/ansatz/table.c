@@ -96,7 +96,6 @@ static void add_bool_or_absent(cJSON *o, const char *k, int v) {
 }
 
 cJSON *ans_table_json(const ans_plan *pl, const ir_recipe *r, const ans_problem *p, const diag_ctx *d) {
-  (void)d;
   const ans_pool *pool = &pl->pool;
   int tapered = p->taper && p->taper->nsym > 0;
   cJSON *o = cJSON_CreateObject();
@@ -138,6 +137,8 @@ cJSON *ans_table_json(const ans_plan *pl, const ir_recipe *r, const ans_problem 
     cJSON_AddNumberToObject(e, "cnot", g->cnot);
     cJSON_AddNumberToObject(e, "rank", g->rank);
     cJSON_AddNumberToObject(e, "line", g->info.line);
+    if (d && g->span.file >= 0 && r->path && strcmp(diag_file_path(d, g->span.file), r->path) != 0)
+      cJSON_AddStringToObject(e, "file", diag_file_path(d, g->span.file));
     if (g->info.nexc > 0) {
       cJSON *f = cJSON_CreateArray(), *t = cJSON_CreateArray();
       for (int k = 0; k < g->info.nexc; k++) {
