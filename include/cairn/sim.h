@@ -52,6 +52,9 @@ void sim_engine_free(sim_engine *e);
 int sim_engine_qubits(const sim_engine *e);
 int sim_engine_params(const sim_engine *e);
 size_t sim_engine_rotations(const sim_engine *e);
+/* Passes the program takes after fusing runs of rotations that share a
+ * parameter and an X mask (a Jordan-Wigner excitation becomes one step). */
+size_t sim_engine_steps(const sim_engine *e);
 
 /* Objective at theta (nparams values): forward pass, one expectation value.
  * Leaves |psi(theta)> as the engine's current state. */

@@ -1,7 +1,8 @@
 ## chemistry: basis sets, integrals, SCF, transforms, FCIDUMP, MP2, CCSD, FCI
 libcairn_a_SOURCES += src/chem/element.c src/chem/chem.c src/chem/chem_util.c src/chem/chem_private.h \
-	src/chem/basis.c src/chem/fcidump.c \
-	include/cairn/basis.h include/cairn/fcidump.h
+	src/chem/basis.c src/chem/fcidump.c src/chem/space.c src/chem/boys.c src/chem/integrals.c src/chem/scf.c \
+	src/chem/mp2.c src/chem/ccsd.c src/chem/fci.c \
+	include/cairn/basis.h include/cairn/fcidump.h include/cairn/integrals.h include/cairn/scf.h
 nodist_libcairn_a_SOURCES = src/chem/basis_data.c
 
 ## The shipped basis sets: embedded into the binary (a generated C source) so
@@ -33,3 +34,8 @@ UNIT_TESTS += tests/unit/test_chem_io
 tests_unit_test_chem_io_SOURCES = tests/unit/test_chem_io.c
 tests_unit_test_chem_io_CFLAGS = $(UNIT_CFLAGS)
 tests_unit_test_chem_io_LDADD = $(UNIT_LDADD)
+
+## the check program the reference tests drive beside psi4
+check_PROGRAMS += tests/ref/chem_driver
+tests_ref_chem_driver_SOURCES = tests/ref/chem_driver.c
+tests_ref_chem_driver_LDADD = $(CAIRN_LIBS)

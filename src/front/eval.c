@@ -38,8 +38,9 @@ static void eval_error(rs *c, diag_span at, const char *help, const char *fmt, .
   if (c->point >= 0 && c->varied) {
     char b[32];
     char *name = ast_text_dup(c->d, c->varied->name);
-    diag_note(c->d, c->r->scan.span, "at the scan point %s = %s %s", name, util_fmt_double(b, c->point_param),
-              ir_unit_name(c->vary_unit));
+    const char *u = ir_unit_name(c->vary_unit);
+    diag_note(c->d, c->r->scan.span, "at the scan point %s = %s%s%s", name, util_fmt_double(b, c->point_param),
+              *u ? " " : "", u);
     free(name);
   }
   if (help) diag_help(c->d, "%s", help);
@@ -299,7 +300,7 @@ int rs_eval_int(rs *c, const ast_expr *e, const char *what, long lo, long hi, lo
     return -1;
   }
   if (x < (double)lo || x > (double)hi) {
-    if (hi >= 1000000000L)
+    if (hi >= 1000000L)
       diag_report(c->d, DIAG_ERROR, e->span, "%s must be at least %ld, not %s", what, lo, util_fmt_double(b, x));
     else
       diag_report(c->d, DIAG_ERROR, e->span, "%s must be from %ld to %ld, not %s", what, lo, hi,

@@ -58,6 +58,11 @@ typedef struct front_parser {
 /* Parse registered file `file`. */
 ast_file *front_parse(diag_ctx *d, int32_t file);
 
+/* All tokens of registered file `file` as the parser would see them (through
+ * the block-keeping wrapper), up to `max`; returns how many there were (which
+ * may exceed max).  The last token is the end of file (kind 0).  For tests. */
+int front_tokens(diag_ctx *d, int32_t file, front_tok *out, int max);
+
 /* Called by the scanner. */
 void front_comment(front_parser *p, diag_span s);
 /* A malformed number (`1.2.3`, `2deg`). */

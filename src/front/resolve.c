@@ -158,6 +158,7 @@ static void resolve_use(rs *c, ast_stmt *s) {
   free(p);
   for (int i = 0; i < c->nstack; i++) {
     if (strcmp(c->stack[i], path) != 0) continue;
+    c->use_failed = 1;
     diag_report(c->d, DIAG_ERROR, s->span, "`use` cycle: `%s` is already being read", path);
     for (int j = i; j < c->nstack; j++)
       diag_note(c->d, DIAG_NOWHERE, "`%s` uses `%s`", c->stack[j], j + 1 < c->nstack ? c->stack[j + 1] : path);
@@ -177,6 +178,7 @@ static void resolve_use(rs *c, ast_stmt *s) {
   }
   int32_t f = c->o.load(c->o.ctx, c->d, path, s->span);
   if (f < 0) {
+    c->use_failed = 1;
     free(path);
     return;
   }
@@ -196,6 +198,7 @@ static void check_header(rs *c, ast_file *a, int top) {
       diag_report(c->d, DIAG_ERROR, s->span, "`cairn 1` belongs on the first line of the file");
       continue;
     }
+    if (top) c->header_span = s->span;
     long v;
     int save = c->cur;
     c->cur = 0;
@@ -207,6 +210,7 @@ static void check_header(rs *c, ast_file *a, int top) {
   }
   if (top && (a->stmts.n == 0 || a->stmts.v[0]->kind != AST_HEADER)) {
     diag_span at = a->stmts.n ? a->stmts.v[0]->span : (diag_span){a->file, 0, 0};
+    c->header_span = at;
     diag_report(c->d, DIAG_ERROR, at, "a recipe starts with the line `cairn 1`");
     diag_help(c->d, "add `cairn 1` (the language version) as the first line");
   }
@@ -396,6 +400,7 @@ static void resolve_vary(rs *c, ast_stmt *s, int order) {
       if (n->def->kind == AST_LET) diag_note(c->d, n->def->span, "`%s` is defined here", nm);
       free(nm);
       ok = 0;
+      break;
     }
   }
   if (!ok) return;
@@ -406,8 +411,10 @@ static void resolve_vary(rs *c, ast_stmt *s, int order) {
   }
   double span_steps = (x[1] - x[0]) / x[2];
   if (span_steps < -1e-9) {
-    diag_report(c->d, DIAG_ERROR, ast_join(s->e[0]->span, s->e[2]->span), "the scan is empty: going from %s by %s never reaches %s",
-                "the start", x[2] > 0 ? "a positive step" : "a negative step", "the end");
+    char b0[32], b1[32], b2[32];
+    diag_report(c->d, DIAG_ERROR, ast_join(s->e[0]->span, s->e[2]->span),
+                "the scan is empty: from %s in steps of %s it never reaches %s", util_fmt_double(b0, from_internal(x[0], unit)),
+                util_fmt_double(b2, from_internal(x[2], unit)), util_fmt_double(b1, from_internal(x[1], unit)));
     diag_help(c->d, "%s", x[2] > 0 ? "to scan downwards, give a negative step" : "to scan upwards, give a positive step");
     return;
   }
@@ -800,7 +807,8 @@ static int rule_pauli(rs *c, ast_stmt *it, ir_rule *rule) {
     diag_report(c->d, DIAG_ERROR, at, "%s", err);
     if (strstr(err, "beyond"))
       diag_note(c->d, c->r->orbitals.active_span, "the register has %d qubits: 2 per active orbital", c->qubits);
-    else diag_help(c->d, "write a Pauli word as letters with qubits, `X0 Y1 Z3`, or densely, `XYIZ`");
+    else if (!strstr(err, "twice"))
+      diag_help(c->d, "write a Pauli word as letters with qubits, `X0 Y1 Z3`, or densely, `XYIZ`");
   } else if (pauli_word_is_identity(nw, x, z)) {
     diag_report(c->d, DIAG_ERROR, all, "the identity is not a generator");
     diag_help(c->d, "a word needs at least one X, Y or Z");

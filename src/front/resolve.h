@@ -81,6 +81,8 @@ typedef struct rs {
   double point_param;        /* ... in the scan's unit */
   int cur;                   /* index of the statement being evaluated (names defined before it) */
   int syntax_errors;
+  int use_failed;            /* a `use`d file could not be read */
+  diag_span header_span;     /* the `cairn 1` line of the top file */
   int molecule_ok;           /* atoms, charge, basis (or integrals) resolved */
   int qubits;                /* 2 x active orbitals, -1 while unknown */
 } rs;

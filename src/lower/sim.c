@@ -10,18 +10,22 @@
 #include <stdlib.h>
 #include <string.h>
 
-/* One rotation with its word as single masks. */
+/* One step of the program: a rotation with its word as single masks, or a
+ * fused run of rotations (same parameter, same X mask, commuting; see
+ * sv_gen), whose multipliers live in the fused generator. */
 typedef struct sim_rot {
   uint64_t x, z;
   int32_t param; /* < 0: fixed angle mult */
-  double mult;
+  double mult;   /* 1 for a fused step */
+  sv_gen *gen;   /* non-NULL: a fused step */
 } sim_rot;
 
 struct sim_engine {
   int n;
   uint64_t init;   /* basis state the program starts from */
-  sim_rot *rot;
-  size_t nrot;
+  sim_rot *rot;   /* steps */
+  size_t nrot;    /* steps */
+  size_t nrot_in; /* rotations of the program */
   int nparams;
   sv_op *obj;      /* the objective */
   sv_state psi;    /* the state (phi during the backward pass) */
@@ -33,6 +37,38 @@ struct sim_engine {
 
 uint64_t sim_engine_bytes(int nqubits, size_t terms) {
   return (uint64_t)SIM_VECTORS * sv_vector_bytes(nqubits) + sv_op_bytes_bound(terms);
+}
+
+/* Replace each maximal run (>= 2) of consecutive rotations with one parameter
+ * and one X mask by a fused step when the words fuse (sv_gen_new); other
+ * rotations stay as they are.  Works in place; returns the number of steps. */
+static size_t fuse_steps(int n, sim_rot *rot, size_t nrot) {
+  size_t out = 0;
+  uint64_t xs[64], zs[64];
+  double ms[64];
+  for (size_t a = 0; a < nrot;) {
+    size_t b = a + 1;
+    while (b < nrot && b - a < 64 && rot[a].param >= 0 && rot[b].param == rot[a].param && rot[b].x == rot[a].x &&
+           rot[a].x != 0)
+      b++;
+    sv_gen *g = NULL;
+    if (b - a >= 2) {
+      for (size_t k = a; k < b; k++) {
+        xs[k - a] = rot[k].x;
+        zs[k - a] = rot[k].z;
+        ms[k - a] = rot[k].mult;
+      }
+      g = sv_gen_new(n, (int)(b - a), xs, zs, ms);
+    }
+    if (g) {
+      rot[out++] = (sim_rot){rot[a].x, 0, rot[a].param, 1.0, g};
+      a = b;
+    } else {
+      rot[out++] = rot[a];
+      a++;
+    }
+  }
+  return out;
 }
 
 sim_engine *sim_engine_new(const ans_circuit *c, const pauli_sum *objective, char *err, size_t errlen) {
@@ -59,9 +95,12 @@ sim_engine *sim_engine_new(const ans_circuit *c, const pauli_sum *objective, cha
     sv_word_masks(&c->words, (size_t)r->word, &rot[k].x, &rot[k].z);
     rot[k].param = r->param;
     rot[k].mult = r->mult;
+    rot[k].gen = NULL;
   }
+  size_t nsteps = fuse_steps(n, rot, c->nrot);
   sv_op *op = sv_op_new(objective, err, errlen);
   if (!op) {
+    for (size_t k = 0; k < nsteps; k++) sv_gen_free(rot[k].gen);
     free(rot);
     return NULL;
   }
@@ -69,7 +108,8 @@ sim_engine *sim_engine_new(const ans_circuit *c, const pauli_sum *objective, cha
   e->n = n;
   e->init = c->init[0];
   e->rot = rot;
-  e->nrot = c->nrot;
+  e->nrot = nsteps;
+  e->nrot_in = c->nrot;
   e->nparams = c->nparams;
   e->obj = op;
   e->theta = xcalloc(c->nparams ? (size_t)c->nparams : 1, sizeof *e->theta);
@@ -80,6 +120,7 @@ sim_engine *sim_engine_new(const ans_circuit *c, const pauli_sum *objective, cha
 
 void sim_engine_free(sim_engine *e) {
   if (!e) return;
+  for (size_t k = 0; k < e->nrot; k++) sv_gen_free(e->rot[k].gen);
   free(e->rot);
   free(e->theta);
   sv_op_free(e->obj);
@@ -90,7 +131,8 @@ void sim_engine_free(sim_engine *e) {
 
 int sim_engine_qubits(const sim_engine *e) { return e->n; }
 int sim_engine_params(const sim_engine *e) { return e->nparams; }
-size_t sim_engine_rotations(const sim_engine *e) { return e->nrot; }
+size_t sim_engine_rotations(const sim_engine *e) { return e->nrot_in; }
+size_t sim_engine_steps(const sim_engine *e) { return e->nrot; }
 long sim_engine_evaluations(const sim_engine *e) { return e->evals; }
 
 static double angle(const sim_rot *r, const double *theta) {
@@ -101,7 +143,11 @@ static double angle(const sim_rot *r, const double *theta) {
 static void forward(sim_engine *e, const double *theta) {
   if (e->nparams && theta != e->theta) memcpy(e->theta, theta, (size_t)e->nparams * sizeof *theta);
   sv_set_basis(&e->psi, e->init);
-  for (size_t k = 0; k < e->nrot; k++) sv_rotate(&e->psi, e->rot[k].x, e->rot[k].z, angle(&e->rot[k], theta));
+  for (size_t k = 0; k < e->nrot; k++) {
+    const sim_rot *r = &e->rot[k];
+    if (r->gen) sv_gen_rotate(r->gen, &e->psi, angle(r, theta));
+    else sv_rotate(&e->psi, r->x, r->z, angle(r, theta));
+  }
   e->valid = 1;
 }
 
@@ -110,10 +156,13 @@ const sv_state *sim_prepare(sim_engine *e, const double *theta) {
   return &e->psi;
 }
 
+/* The energy goes through O|psi> into the second vector, exactly as in
+ * sim_energy_grad, so an energy does not depend on whether a gradient was
+ * taken with it (same bits). */
 double sim_energy(sim_engine *e, const double *theta) {
   forward(e, theta);
   e->evals++;
-  return creal(sv_op_expect(e->obj, &e->psi));
+  return creal(sv_op_apply(e->obj, &e->psi, &e->lam));
 }
 
 /* Reverse mode: lambda = O psi, then walk the rotations backwards.  At step k
@@ -127,7 +176,11 @@ double sim_energy_grad(sim_engine *e, const double *theta, double *grad) {
   for (int p = 0; p < e->nparams; p++) grad[p] = 0;
   for (size_t k = e->nrot; k-- > 0;) {
     const sim_rot *r = &e->rot[k];
-    if (r->param >= 0) {
+    if (r->gen) {
+      double complex w = k > 0 ? sv_gen_inner_rotate2(r->gen, &e->lam, &e->psi, -angle(r, theta))
+                               : sv_gen_inner(r->gen, &e->lam, &e->psi);
+      grad[r->param] += cimag(w);
+    } else if (r->param >= 0) {
       double complex w = k > 0 ? sv_word_inner_rotate2(&e->lam, &e->psi, r->x, r->z, -angle(r, theta))
                                : sv_word_inner(&e->lam, r->x, r->z, &e->psi);
       grad[r->param] += r->mult * cimag(w);
@@ -150,5 +203,5 @@ sv_op *sim_observable(const sim_engine *e, const pauli_sum *s, char *err, size_t
 
 double sim_expect(sim_engine *e, const sv_op *op) {
   if (!e->valid) forward(e, e->theta);
-  return creal(sv_op_expect(op, &e->psi));
+  return creal(sv_op_apply(op, &e->psi, &e->lam));
 }

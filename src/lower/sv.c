@@ -141,148 +141,222 @@ static void ipow(int m, double *re, double *im) {
 
 static int ycount(uint64_t x, uint64_t z) { return __builtin_popcountll(x & z); }
 
-/* Diagonal rotation (x = 0): a_i <- (c - i s sigma_i) a_i, sigma_i = (-1)^|i & z|. */
-static void rotate_diag(double *restrict v, uint64_t dim, uint64_t z, double c, double s) {
-#pragma omp parallel for schedule(static) if (dim >= SV_PAR_MIN)
-  for (uint64_t i = 0; i < dim; i++) {
-    double si = sv_parity(i & z) ? -s : s;
-    double ar = v[2 * i], ai = v[2 * i + 1];
-    v[2 * i] = c * ar + si * ai;
-    v[2 * i + 1] = c * ai - si * ar;
+/* The kernels below walk the register in blocks of 64 amplitudes: the sign
+ * (-1)^|i & z| of row i = base + l is the block's parity times row[l], a
+ * 64-entry table of (-1)^|l & z| built once per call.  Pairs (i, j = i ^ x)
+ * with bit p (the top bit of x) of i clear: when p >= 6 they are whole blocks
+ * (base with bit p clear, partner block base ^ x_high, partner row l ^ x_low);
+ * when p < 6 both rows lie in one block. */
+#define BLK 64
+
+static void sign_row(uint64_t z, double *row) {
+  for (unsigned l = 0; l < BLK; l++) row[l] = sv_parity(l & z) ? -1.0 : 1.0;
+}
+
+/* The operation on one pair, given the sign of row i. */
+typedef enum pair_op { OP_ROTATE, OP_WORD, OP_INNER, OP_INNER_ROTATE } pair_op;
+
+typedef struct kparams {
+  sv_v2 C;       /* (c, c) */
+  sv_v2 F1, F2;  /* f b = F1 b + F2 swap(b): f = -i s i^ny (rotate) or i^ny (word) */
+  double eps;    /* (-1)^ny */
+} kparams;
+
+/* f b, where f is real (F1 only) or imaginary (F2 only): fim says which. */
+static inline __attribute__((always_inline)) sv_v2 kmul(const kparams *k, int fim, sv_v2 b) {
+  return fim ? k->F2 * sv_swap(b) : k->F1 * b;
+}
+
+/* One pair: a (the conjugated vector of the inner product, or NULL) and b. */
+static inline __attribute__((always_inline)) void pair_step(pair_op op, int fim, const kparams *k, double sg,
+                                                            sv_v2 *restrict a, sv_v2 *restrict b, uint64_t i,
+                                                            uint64_t j, sv_v2 *acc) {
+  sv_v2 bi = b[i], bj = b[j];
+  double se = sg * k->eps;
+  if (op == OP_INNER || op == OP_INNER_ROTATE) {
+    /* eps conj(a_i) b_j + conj(a_j) b_i, times sigma_i; the phase i^ny later */
+    sv_v2 ai = a[i], aj = a[j];
+    sv_v2 t1 = se * ai, t2 = sg * aj;
+    acc[0] += t1 * bj + t2 * bi;                   /* lanes (ar br, ai bi) */
+    acc[1] += t1 * sv_swap(bj) + t2 * sv_swap(bi); /* lanes (ar bi, ai br) */
+    if (op == OP_INNER_ROTATE) {
+      a[i] = k->C * ai + se * kmul(k, fim, aj);
+      a[j] = k->C * aj + sg * kmul(k, fim, ai);
+    }
   }
+  if (op == OP_ROTATE || op == OP_INNER_ROTATE) {
+    b[i] = k->C * bi + se * kmul(k, fim, bj);
+    b[j] = k->C * bj + sg * kmul(k, fim, bi);
+  } else if (op == OP_WORD) {
+    b[i] = se * kmul(k, fim, bj);
+    b[j] = sg * kmul(k, fim, bi);
+  }
+}
+
+/* Blocks [q0, q1) of the pass (see pairs_pass); specialized by the inliner
+ * for each (op, fim). */
+static inline __attribute__((always_inline)) void pairs_chunk(pair_op op, int fim, const kparams *k, sv_v2 *restrict a,
+                                                              sv_v2 *restrict b, uint64_t q0, uint64_t q1, int p,
+                                                              uint64_t x, uint64_t z, const double *row,
+                                                              sv_v2 *acc) {
+  uint64_t xl = x & (BLK - 1), xh = x & ~(uint64_t)(BLK - 1);
+  for (uint64_t q = q0; q < q1; q++) {
+    uint64_t base = (p >= 6 ? sv_insert0(q, p - 6) : q) * BLK, jb = base ^ xh;
+    double sb = sv_parity(base & z) ? -1.0 : 1.0;
+    if (p >= 6) {
+      for (unsigned l = 0; l < BLK; l++) pair_step(op, fim, k, sb * row[l], a, b, base + l, jb + (l ^ xl), acc);
+    } else {
+      for (unsigned h = 0; h < BLK / 2; h++) {
+        unsigned l = (unsigned)sv_insert0(h, p);
+        pair_step(op, fim, k, sb * row[l], a, b, base + l, base + (l ^ xl), acc);
+      }
+    }
+  }
+}
+
+#define PAIRS_CHUNK(OP, ...) (fim ? pairs_chunk(OP, 1, __VA_ARGS__) : pairs_chunk(OP, 0, __VA_ARGS__))
+
+/* Every pair of the register, in chunks of blocks; returns the sum of the
+ * per-chunk accumulators (in chunk order) as (re, im) of sum conj(a) ... . */
+static double complex pairs_pass(pair_op op, int fim, const kparams *k, sv_v2 *restrict a, sv_v2 *restrict b,
+                                 uint64_t dim, uint64_t x, uint64_t z) {
+  int p = sv_top_bit(x);
+  double row[BLK];
+  sign_row(z & (BLK - 1), row);
+  int inner = op == OP_INNER || op == OP_INNER_ROTATE;
+  if (dim < BLK) { /* small registers: pairs one by one */
+    sv_v2 acc[2] = {{0, 0}, {0, 0}};
+    for (uint64_t q = 0; q < dim / 2; q++) {
+      uint64_t i = sv_insert0(q, p);
+      pair_step(op, fim, k, sv_parity(i & z) ? -1.0 : 1.0, a, b, i, i ^ x, acc);
+    }
+    return CMPLX(acc[0][0] + acc[0][1], acc[1][0] - acc[1][1]);
+  }
+  uint64_t nblk = dim / BLK;
+  /* blocks visited: all of them (p < 6) or those with bit p clear */
+  uint64_t nvis = p >= 6 ? nblk / 2 : nblk, cb = SV_CHUNK / BLK, nch = (nvis + cb - 1) / cb;
+  parts ps;
+  double *part = parts_get(&ps, inner ? nch : 1);
+#pragma omp parallel for schedule(static) if (dim >= 2 * SV_PAR_MIN)
+  for (uint64_t ch = 0; ch < nch; ch++) {
+    sv_v2 acc[2] = {{0, 0}, {0, 0}};
+    uint64_t q0 = ch * cb, q1 = (ch + 1) * cb < nvis ? (ch + 1) * cb : nvis;
+    switch (op) {
+    case OP_ROTATE: PAIRS_CHUNK(OP_ROTATE, k, a, b, q0, q1, p, x, z, row, acc); break;
+    case OP_WORD: PAIRS_CHUNK(OP_WORD, k, a, b, q0, q1, p, x, z, row, acc); break;
+    case OP_INNER: PAIRS_CHUNK(OP_INNER, k, a, b, q0, q1, p, x, z, row, acc); break;
+    case OP_INNER_ROTATE: PAIRS_CHUNK(OP_INNER_ROTATE, k, a, b, q0, q1, p, x, z, row, acc); break;
+    }
+    if (inner) {
+      part[2 * ch] = acc[0][0] + acc[0][1];
+      part[2 * ch + 1] = acc[1][0] - acc[1][1];
+    }
+  }
+  double complex r = inner ? sum_parts(part, nch) : 0;
+  parts_free(&ps);
+  return r;
+}
+
+/* Diagonal words (x = 0): a_i <- (c - i s sigma_i) a_i, or <a|Z^z|b>. */
+static double complex diag_pass(pair_op op, double c, double s, sv_v2 *restrict a, sv_v2 *restrict b, uint64_t dim,
+                                uint64_t z) {
+  double row[BLK];
+  sign_row(z & (BLK - 1), row);
+  uint64_t bl = dim < BLK ? dim : BLK, nblk = dim / bl, cb = SV_CHUNK / bl, nch = (nblk + cb - 1) / cb;
+  int inner = op == OP_INNER || op == OP_INNER_ROTATE;
+  const sv_v2 C = {c, c}, S = {s, -s}; /* (c - i s)(x + iy) = (c x + s y, c y - s x) */
+  parts ps;
+  double *part = parts_get(&ps, inner ? nch : 1);
+#pragma omp parallel for schedule(static) if (dim >= 2 * SV_PAR_MIN)
+  for (uint64_t ch = 0; ch < nch; ch++) {
+    sv_v2 a1 = {0, 0}, a2 = {0, 0};
+    uint64_t b1 = (ch + 1) * cb < nblk ? (ch + 1) * cb : nblk;
+    for (uint64_t q = ch * cb; q < b1; q++) {
+      uint64_t base = q * bl;
+      double sb = sv_parity(base & z) ? -1.0 : 1.0;
+      for (unsigned l = 0; l < bl; l++) {
+        uint64_t i = base + l;
+        double sg = sb * row[l];
+        sv_v2 bi = b[i];
+        if (inner) {
+          sv_v2 ai = sg * a[i];
+          a1 += ai * bi;
+          a2 += ai * sv_swap(bi);
+          if (op == OP_INNER_ROTATE) a[i] = C * a[i] + sg * S * sv_swap(a[i]);
+        }
+        if (op == OP_ROTATE || op == OP_INNER_ROTATE) b[i] = C * bi + sg * S * sv_swap(bi);
+        else if (op == OP_WORD) b[i] = sg * bi;
+      }
+    }
+    if (inner) {
+      part[2 * ch] = a1[0] + a1[1];
+      part[2 * ch + 1] = a2[0] - a2[1];
+    }
+  }
+  double complex r = inner ? sum_parts(part, nch) : 0;
+  parts_free(&ps);
+  return r;
 }
 
 /* exp(-i theta P/2) = c - i s P with (P a)_i = i^ny sigma_j a_j, j = i ^ x,
  * sigma_j = sigma_i (-1)^ny.  With f = -i s i^ny:
  *   a_i' = c a_i + eps sigma_i f a_j,  a_j' = c a_j + sigma_i f a_i,
- * eps = (-1)^ny; i runs over indices with bit p (the top bit of x) clear. */
+ * eps = (-1)^ny. */
+/* f = -i s i^ny is imaginary for even ny, real for odd ny. */
+static void rot_params(uint64_t x, uint64_t z, double theta, kparams *k) {
+  double c = cos(0.5 * theta), sn = sin(0.5 * theta), wr, wi;
+  int ny = ycount(x, z);
+  ipow(ny + 3, &wr, &wi);
+  k->C = (sv_v2){c, c};
+  k->F1 = (sv_v2){sn * wr, sn * wr};
+  k->F2 = (sv_v2){-sn * wi, sn * wi};
+  k->eps = (ny & 1) ? -1.0 : 1.0;
+}
+
 void sv_rotate(sv_state *s, uint64_t x, uint64_t z, double theta) {
-  double c = cos(0.5 * theta), sn = sin(0.5 * theta);
-  double *restrict v = (double *)s->a;
+  sv_v2 *v = (sv_v2 *)s->a;
   if (x == 0) {
-    rotate_diag(v, s->dim, z, c, sn);
+    diag_pass(OP_ROTATE, cos(0.5 * theta), sin(0.5 * theta), NULL, v, s->dim, z);
     return;
   }
-  int ny = ycount(x, z), p = sv_top_bit(x);
-  double wr, wi;
-  ipow(ny + 3, &wr, &wi);
-  const double fr = sn * wr, fi = sn * wi, eps = (ny & 1) ? -1.0 : 1.0;
-  uint64_t npairs = s->dim >> 1;
-#pragma omp parallel for schedule(static) if (npairs >= SV_PAR_MIN)
-  for (uint64_t k = 0; k < npairs; k++) {
-    uint64_t i = sv_insert0(k, p), j = i ^ x;
-    double sg = sv_parity(i & z) ? -1.0 : 1.0;
-    double gr = sg * fr, gi = sg * fi; /* sigma_i f */
-    double ar = v[2 * i], ai = v[2 * i + 1], br = v[2 * j], bi = v[2 * j + 1];
-    v[2 * i] = c * ar + eps * (gr * br - gi * bi);
-    v[2 * i + 1] = c * ai + eps * (gr * bi + gi * br);
-    v[2 * j] = c * br + (gr * ar - gi * ai);
-    v[2 * j + 1] = c * bi + (gr * ai + gi * ar);
-  }
+  kparams k;
+  rot_params(x, z, theta, &k);
+  pairs_pass(OP_ROTATE, !(ycount(x, z) & 1), &k, NULL, v, s->dim, x, z);
 }
 
 /* (P a)_i = i^ny sigma_j a_j: swap the pair with the phases. */
 void sv_apply_word(sv_state *s, uint64_t x, uint64_t z) {
-  double *restrict v = (double *)s->a;
+  sv_v2 *v = (sv_v2 *)s->a;
+  if (x == 0) {
+    diag_pass(OP_WORD, 0, 0, NULL, v, s->dim, z);
+    return;
+  }
   int ny = ycount(x, z);
   double vr, vi;
   ipow(ny, &vr, &vi);
-  if (x == 0) {
-#pragma omp parallel for schedule(static) if (s->dim >= SV_PAR_MIN)
-    for (uint64_t i = 0; i < s->dim; i++)
-      if (sv_parity(i & z)) {
-        v[2 * i] = -v[2 * i];
-        v[2 * i + 1] = -v[2 * i + 1];
-      }
-    return;
-  }
-  int p = sv_top_bit(x);
-  const double eps = (ny & 1) ? -1.0 : 1.0;
-  uint64_t npairs = s->dim >> 1;
-#pragma omp parallel for schedule(static) if (npairs >= SV_PAR_MIN)
-  for (uint64_t k = 0; k < npairs; k++) {
-    uint64_t i = sv_insert0(k, p), j = i ^ x;
-    double sg = sv_parity(i & z) ? -1.0 : 1.0;
-    double gr = sg * vr, gi = sg * vi; /* i^ny sigma_i */
-    double ar = v[2 * i], ai = v[2 * i + 1], br = v[2 * j], bi = v[2 * j + 1];
-    v[2 * i] = eps * (gr * br - gi * bi);
-    v[2 * i + 1] = eps * (gr * bi + gi * br);
-    v[2 * j] = gr * ar - gi * ai;
-    v[2 * j + 1] = gr * ai + gi * ar;
-  }
+  kparams k = {{0, 0}, {vr, vr}, {-vi, vi}, (ny & 1) ? -1.0 : 1.0};
+  pairs_pass(OP_WORD, ny & 1, &k, NULL, v, s->dim, x, z);
 }
 
-/* Shared body of sv_word_inner and sv_word_inner_rotate2.
- * <a|P|b> = i^ny sum over pairs of sigma_i (eps conj(a_i) b_j + conj(a_j) b_i)
+/* <a|P|b> = i^ny sum over pairs of sigma_i (eps conj(a_i) b_j + conj(a_j) b_i)
  * (diagonal words: sum of sigma_i conj(a_i) b_i).  With rot set, both vectors
  * are then rotated by exp(-i theta P/2) in the same pass. */
-static double complex word_inner(double *restrict a, uint64_t x, uint64_t z, double *restrict b, uint64_t dim,
-                                 int rot, double theta) {
-  double c = cos(0.5 * theta), sn = sin(0.5 * theta);
-  int ny = ycount(x, z);
-  double vr, vi, wr, wi;
-  ipow(ny, &vr, &vi);
-  ipow(ny + 3, &wr, &wi);
-  const double fr = sn * wr, fi = sn * wi, eps = (ny & 1) ? -1.0 : 1.0;
-  int p = x ? sv_top_bit(x) : 0;
-  uint64_t n = x ? dim >> 1 : dim, nch = (n + SV_CHUNK - 1) / SV_CHUNK;
-  parts ps;
-  double *part = parts_get(&ps, nch);
-#pragma omp parallel for schedule(static) if (n >= SV_PAR_MIN)
-  for (uint64_t ch = 0; ch < nch; ch++) {
-    uint64_t lo = ch * SV_CHUNK, hi = lo + SV_CHUNK < n ? lo + SV_CHUNK : n;
-    double re = 0, im = 0;
-    if (x == 0) {
-      for (uint64_t i = lo; i < hi; i++) {
-        double sg = sv_parity(i & z) ? -1.0 : 1.0;
-        double ar = a[2 * i], ai = a[2 * i + 1], br = b[2 * i], bi = b[2 * i + 1];
-        re += sg * (ar * br + ai * bi);
-        im += sg * (ar * bi - ai * br);
-        if (rot) {
-          double s1 = sg * sn;
-          a[2 * i] = c * ar + s1 * ai;
-          a[2 * i + 1] = c * ai - s1 * ar;
-          b[2 * i] = c * br + s1 * bi;
-          b[2 * i + 1] = c * bi - s1 * br;
-        }
-      }
-    } else {
-      for (uint64_t k = lo; k < hi; k++) {
-        uint64_t i = sv_insert0(k, p), j = i ^ x;
-        double sg = sv_parity(i & z) ? -1.0 : 1.0;
-        double air = a[2 * i], aii = a[2 * i + 1], ajr = a[2 * j], aji = a[2 * j + 1];
-        double bir = b[2 * i], bii = b[2 * i + 1], bjr = b[2 * j], bji = b[2 * j + 1];
-        /* eps conj(a_i) b_j + conj(a_j) b_i */
-        double tr = eps * (air * bjr + aii * bji) + (ajr * bir + aji * bii);
-        double ti = eps * (air * bji - aii * bjr) + (ajr * bii - aji * bir);
-        re += sg * tr;
-        im += sg * ti;
-        if (rot) {
-          double gr = sg * fr, gi = sg * fi;
-          a[2 * i] = c * air + eps * (gr * ajr - gi * aji);
-          a[2 * i + 1] = c * aii + eps * (gr * aji + gi * ajr);
-          a[2 * j] = c * ajr + (gr * air - gi * aii);
-          a[2 * j + 1] = c * aji + (gr * aii + gi * air);
-          b[2 * i] = c * bir + eps * (gr * bjr - gi * bji);
-          b[2 * i + 1] = c * bii + eps * (gr * bji + gi * bjr);
-          b[2 * j] = c * bjr + (gr * bir - gi * bii);
-          b[2 * j + 1] = c * bji + (gr * bii + gi * bir);
-        }
-      }
-    }
-    part[2 * ch] = re;
-    part[2 * ch + 1] = im;
-  }
-  double complex r = sum_parts(part, nch);
-  parts_free(&ps);
-  if (x) r *= CMPLX(vr, vi);
-  return r;
+static double complex word_inner(sv_v2 *restrict a, uint64_t x, uint64_t z, sv_v2 *restrict b, uint64_t dim, int rot,
+                                 double theta) {
+  pair_op op = rot ? OP_INNER_ROTATE : OP_INNER;
+  if (x == 0) return diag_pass(op, cos(0.5 * theta), sin(0.5 * theta), a, b, dim, z);
+  kparams k;
+  rot_params(x, z, theta, &k);
+  double complex r = pairs_pass(op, !(ycount(x, z) & 1), &k, a, b, dim, x, z);
+  double vr, vi;
+  ipow(ycount(x, z), &vr, &vi);
+  return r * CMPLX(vr, vi);
 }
 
 double complex sv_word_inner(const sv_state *a, uint64_t x, uint64_t z, const sv_state *b) {
-  return word_inner((double *)a->a, x, z, (double *)b->a, a->dim, 0, 0.0);
+  return word_inner((sv_v2 *)a->a, x, z, (sv_v2 *)b->a, a->dim, 0, 0.0);
 }
 
 double complex sv_word_inner_rotate2(sv_state *l, sv_state *p, uint64_t x, uint64_t z, double theta) {
-  return word_inner((double *)l->a, x, z, (double *)p->a, l->dim, 1, theta);
+  return word_inner((sv_v2 *)l->a, x, z, (sv_v2 *)p->a, l->dim, 1, theta);
 }

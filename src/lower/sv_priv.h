@@ -23,4 +23,57 @@ static inline uint64_t sv_insert0(uint64_t k, int p) {
 /* Highest set bit of v != 0. */
 static inline int sv_top_bit(uint64_t v) { return 63 - __builtin_clzll(v); }
 
+/* One complex amplitude as a two-lane vector (GCC/clang vector extension:
+ * SSE2 on x86-64, NEON on arm64); may alias the doubles of the vectors. */
+typedef double sv_v2 __attribute__((vector_size(16), may_alias));
+typedef long long sv_v2i __attribute__((vector_size(16)));
+/* (re, im) -> (im, re) */
+static inline sv_v2 sv_swap(sv_v2 a) { return __builtin_shuffle(a, (sv_v2i){1, 0}); }
+
+/* Software pdep / pext on masks (compile-time tables only). */
+static inline uint64_t sv_deposit(uint64_t v, uint64_t mask) {
+  uint64_t r = 0;
+  for (uint64_t b = 1; mask; b <<= 1) {
+    if (v & b) r |= mask & -mask;
+    mask &= mask - 1;
+  }
+  return r;
+}
+static inline uint64_t sv_extract(uint64_t v, uint64_t mask) {
+  uint64_t r = 0, b = 1;
+  for (; mask; b <<= 1) {
+    if (v & mask & -mask) r |= b;
+    mask &= mask - 1;
+  }
+  return r;
+}
+/* The lowest / highest k set bits of mask. */
+static inline uint64_t sv_lowest_bits(uint64_t mask, int k) {
+  uint64_t r = 0;
+  for (int i = 0; i < k && mask; i++) {
+    r |= mask & -mask;
+    mask &= mask - 1;
+  }
+  return r;
+}
+static inline uint64_t sv_highest_bits(uint64_t mask, int k) {
+  uint64_t r = 0;
+  for (int i = 0; i < k && mask; i++) {
+    uint64_t b = (uint64_t)1 << sv_top_bit(mask);
+    r |= b;
+    mask &= ~b;
+  }
+  return r;
+}
+
+/* Sub-cube layout shared by compiled operators and fused generators: the bits
+ * S (of the X mask) split the rows into sub-cubes; inside one, rows are
+ * base | off[l], with l the block index over the lowest free bits and base
+ * running over the subsets of `mid`. */
+#define SV_LOG_BLOCK 6 /* blocks of 64 rows: a 64 x 64 sign table stays in L1 */
+#define SV_SBITS 6     /* most bits of x that split rows into sub-cubes */
+
+/* The 64 x 64 table tau[u*64 + l] = (-1)^|u & l| (malloc'd, caller frees). */
+double *sv_sign_table(void);
+
 #endif

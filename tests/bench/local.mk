@@ -1,4 +1,5 @@
 ## benchmarks (make bench); each module appends its target to BENCH_TARGETS
+BENCH_TARGETS += bench-gates
 
 ## benchmark (make bench): pool screening at 40 and 100 qubits
 noinst_PROGRAMS += tests/bench/ans_bench

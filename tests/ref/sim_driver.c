@@ -60,6 +60,8 @@ static int do_eval(const cJSON *in, sim_engine *e, int np) {
   cJSON_AddItemToObject(o, "energy", json_number(E));
   cJSON_AddItemToObject(o, "energy_from_gradient_pass", json_number(Eg));
   cJSON_AddItemToObject(o, "gradient", num_array(grad, np));
+  cJSON_AddNumberToObject(o, "rotations", (double)sim_engine_rotations(e));
+  cJSON_AddNumberToObject(o, "steps", (double)sim_engine_steps(e));
   cJSON *st = cJSON_CreateArray();
   for (uint64_t i = 0; i < psi->dim; i++) {
     double pr[2] = {creal(psi->a[i]), cimag(psi->a[i])};

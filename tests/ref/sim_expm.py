@@ -7,7 +7,9 @@ Hermitian Pauli sums and random programs on 1 to 10 qubits.
 Sources: numpy and scipy run live (reference programs of the project); the
 Pauli matrices and the qubit order (qubit q is bit q of the basis index) are
 common practice / DEVELOPERS.md.  Tolerance 1e-10 on energies and amplitudes;
-the gradient is checked against the dense derivative
+programs of Jordan-Wigner excitations (written out here, independently) check
+the engine's fused steps the same way.  The gradient is checked against the
+dense derivative
 dE/dtheta_p = 2 Re <psi|H|d psi/d theta_p> to 1e-9.
 
 Measured here: Debian's scipy 1.10.1 scipy.linalg.expm returns wrong
@@ -110,6 +112,82 @@ def expm_checked(a):
     return u
 
 
+# Jordan-Wigner excitations written out here, independently of cairn: words
+# as {qubit: letter} with complex coefficients; a_p = Z_0..Z_{p-1}(X_p + iY_p)/2.
+MUL = {("X", "Y"): (1j, "Z"), ("Y", "Z"): (1j, "X"), ("Z", "X"): (1j, "Y"),
+       ("Y", "X"): (-1j, "Z"), ("Z", "Y"): (-1j, "X"), ("X", "Z"): (-1j, "Y")}
+
+
+def word_mul(a, b):
+    ph, out = 1, dict(a)
+    for q, l in b.items():
+        if q not in out:
+            out[q] = l
+        elif out[q] == l:
+            del out[q]
+        else:
+            f, r = MUL[(out[q], l)]
+            ph *= f
+            out[q] = r
+    return ph, out
+
+
+def op_mul(s, t):
+    acc = {}
+    for wa, ca in s.items():
+        for wb, cb in t.items():
+            ph, w = word_mul(dict(wa), dict(wb))
+            key = tuple(sorted(w.items()))
+            acc[key] = acc.get(key, 0) + ca * cb * ph
+    return acc
+
+
+def ladder(p, dagger):
+    z = [(q, "Z") for q in range(p)]
+    return {tuple(z + [(p, "X")]): 0.5, tuple(z + [(p, "Y")]): (-0.5j if dagger else 0.5j)}
+
+
+def excitation_words(frm, to):
+    """G = 2i (T - T^+), T = a_to^+ ... a_from ... as {word: real multiplier}."""
+    t = {(): 1}
+    for a in to:
+        t = op_mul(t, ladder(a, True))
+    for i in reversed(frm):
+        t = op_mul(t, ladder(i, False))
+    g = {}
+    for w, c in t.items():
+        g[w] = g.get(w, 0) + 2j * c
+    adj = {(): 1}
+    for i in frm:
+        adj = op_mul(adj, ladder(i, True))
+    for a in reversed(to):
+        adj = op_mul(adj, ladder(a, False))
+    for w, c in adj.items():
+        g[w] = g.get(w, 0) - 2j * c
+    return {w: c.real for w, c in g.items() if abs(c) > 1e-12}
+
+
+def excitation_problem(rng, n, nelec, nterms):
+    """Random Hermitian H and a program of random JW excitations: the words of
+    one excitation in a row with one parameter (the runs the engine fuses)."""
+    job, ham, init, mats, obs = problem(rng, n, nterms, 1, 0)
+    occ, vir = list(range(nelec)), list(range(nelec, n))
+    rots, mats, nparams = [], [], 0
+    for _ in range(6):
+        k = 1 + int(rng.integers(2))
+        frm = sorted(int(q) for q in rng.choice(occ, k, replace=False))
+        to = sorted(int(q) for q in rng.choice(vir, k, replace=False))
+        for w, m in sorted(excitation_words(frm, to).items()):
+            letters = dict(w)
+            rots.append({"word": text(letters), "param": nparams, "mult": m, "gen": 0})
+            mats.append(dense(n, letters))
+        nparams += 1
+    init = [1] * nelec + [0] * (n - nelec)
+    job["circuit"].update(init="1" * nelec + "0" * (n - nelec), params=[0] * nparams, rotations=rots)
+    job["theta"] = [float(t) for t in rng.uniform(-1, 1, nparams)]
+    return job, ham, init, mats, obs
+
+
 def reference(n, ham, init, rots, mats, theta):
     """State, energy and gradient by dense matrices and scipy.linalg.expm."""
     idx = sum(b << q for q, b in enumerate(init))
@@ -141,10 +219,14 @@ def main():
     rng = np.random.default_rng(20260601)
     failures = 0
     cases = [(n, t) for n in range(1, 9) for t in range(3)] + [(9, 0), (9, 1), (10, 0)]
+    cases += [(n, "excitations") for n in (4, 6, 8)]
     with tempfile.TemporaryDirectory() as tmp:
         for n, trial in cases:
             nrot = 30 if n <= 6 else (12 if n <= 8 else 6)
-            job, ham, init, mats, obs = problem(rng, n, 4 * n + 3, 1 + int(rng.integers(5)), nrot)
+            if trial == "excitations":
+                job, ham, init, mats, obs = excitation_problem(rng, n, n // 2, 4 * n + 3)
+            else:
+                job, ham, init, mats, obs = problem(rng, n, 4 * n + 3, 1 + int(rng.integers(5)), nrot)
             path = os.path.join(tmp, f"job{n}_{trial}.json")
             with open(path, "w") as f:
                 json.dump(job, f)
@@ -162,7 +244,9 @@ def main():
             dgp = abs(got["energy_from_gradient_pass"] - energy)
             do = abs(got["observables"][0] - np.vdot(psi, obs @ psi).real)
             ok = de < 1e-10 and ds < 1e-10 and dg < 1e-9 and dgp < 1e-10 and do < 1e-10
-            print(f"n={n:2d} trial {trial}: |dE|={de:.1e} |dpsi|={ds:.1e} |dgrad|={dg:.1e} |dobs|={do:.1e} {'ok' if ok else 'FAIL'}")
+            if trial == "excitations":  # each excitation's words run as one fused step
+                ok = ok and got["steps"] == len(job["theta"]) < got["rotations"]
+            print(f"n={n:2d} {trial if isinstance(trial, str) else 'trial ' + str(trial)}: |dE|={de:.1e} |dpsi|={ds:.1e} |dgrad|={dg:.1e} |dobs|={do:.1e} {'ok' if ok else 'FAIL'}")
             failures += not ok
     return 1 if failures else 0
 

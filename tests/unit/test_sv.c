@@ -314,11 +314,176 @@ static void test_thread_independence(void **state) {
 #endif
 }
 
+/* Jordan-Wigner ladder operator a_p (dagger: a_p^+) = Z_0..Z_{p-1} (X_p +- i Y_p)/2
+ * (the Jordan-Wigner transformation, 1928; common practice). */
+static void jw_ladder(int n, int p, int dagger, pauli_sum *out) {
+  pauli_sum_init(out, n);
+  uint64_t x = (uint64_t)1 << p, zs = x - 1;
+  uint64_t zx = zs, zy = zs | x;
+  pauli_sum_add(out, &x, &zx, 0.5);
+  pauli_sum_add(out, &x, &zy, dagger ? -0.5 * I : 0.5 * I);
+}
+
+/* G = 2i (T - T^+) for T = a_to[k]^+ ... a_from[k] ... (a fermionic excitation,
+ * stored as in ansatz.h). */
+static void jw_excitation(int n, int k, const int *from, const int *to, pauli_sum *G) {
+  pauli_sum T, f, tmp;
+  pauli_sum_init(&T, n);
+  pauli_sum_add_identity(&T, 1.0);
+  pauli_sum_init(&tmp, n);
+  for (int a = 0; a < k; a++) {
+    jw_ladder(n, to[a], 1, &f);
+    pauli_sum_mul(&tmp, &T, &f);
+    pauli_sum_copy(&T, &tmp);
+    pauli_sum_free(&f);
+  }
+  for (int a = k - 1; a >= 0; a--) {
+    jw_ladder(n, from[a], 0, &f);
+    pauli_sum_mul(&tmp, &T, &f);
+    pauli_sum_copy(&T, &tmp);
+    pauli_sum_free(&f);
+  }
+  pauli_sum Td;
+  pauli_sum_init(&Td, n);
+  pauli_sum_adjoint(&Td, &T);
+  pauli_sum_init(G, n);
+  pauli_sum_add_sum(G, &T, 2.0 * I);
+  pauli_sum_add_sum(G, &Td, -2.0 * I);
+  pauli_sum_canonicalize(G, 1e-15);
+  pauli_sum_free(&T);
+  pauli_sum_free(&Td);
+  pauli_sum_free(&tmp);
+}
+
+/* Check a fused generator against the same words one by one. */
+static void check_gen(util_rng *r, int n, int count, const uint64_t *x, const uint64_t *z, const double *m,
+                      const sv_gen *g) {
+  sv_state a, b, a2, b2;
+  sv_state_alloc(&a, n);
+  sv_state_alloc(&b, n);
+  sv_state_alloc(&a2, n);
+  sv_state_alloc(&b2, n);
+  random_state(r, &a);
+  random_state(r, &b);
+  sv_copy(&a2, &a);
+  sv_copy(&b2, &b);
+  double theta = 3 * util_rng_uniform(r) - 1.5;
+  double complex want = 0;
+  for (int k = 0; k < count; k++) want += m[k] * sv_word_inner(&a, x[k], z[k], &b);
+  assert_true(cabs(sv_gen_inner(g, &a, &b) - want) < 1e-12);
+  for (int k = 0; k < count; k++) {
+    sv_rotate(&a, x[k], z[k], theta * m[k]);
+    sv_rotate(&b, x[k], z[k], theta * m[k]);
+  }
+  double complex got = sv_gen_inner_rotate2(g, &a2, &b2, theta);
+  assert_true(cabs(got - want) < 1e-12);
+  assert_true(max_diff(a.dim, a.a, a2.a) < 1e-13);
+  assert_true(max_diff(b.dim, b.a, b2.a) < 1e-13);
+  random_state(r, &a);
+  sv_copy(&a2, &a);
+  for (int k = 0; k < count; k++) sv_rotate(&a, x[k], z[k], theta * m[k]);
+  sv_gen_rotate(g, &a2, theta);
+  assert_true(max_diff(a.dim, a.a, a2.a) < 1e-13);
+  sv_state_free(&a);
+  sv_state_free(&b);
+  sv_state_free(&a2);
+  sv_state_free(&b2);
+}
+
+/* Jordan-Wigner single and double excitations fuse, touch 1/2 and 1/8 of the
+ * pairs (a single moves one of 2 occupation patterns of its 2 spin orbitals
+ * to the other, a double one of 16 patterns of 4; common practice), and equal
+ * their words applied one by one; single words fuse trivially. */
+static void test_fused_excitations(void **state) {
+  (void)state;
+  util_rng r;
+  util_rng_seed(&r, 16);
+  const int n = 9;
+  const int cases[][5] = {{1, 0, 0, 3, 0}, {1, 2, 0, 7, 0}, {2, 0, 1, 4, 6}, {2, 1, 3, 5, 8}, {2, 0, 7, 2, 8}};
+  for (size_t c = 0; c < sizeof cases / sizeof *cases; c++) {
+    int k = cases[c][0], from[2], to[2];
+    if (k == 1) {
+      from[0] = cases[c][1];
+      to[0] = cases[c][3];
+    } else {
+      from[0] = cases[c][1];
+      from[1] = cases[c][2];
+      to[0] = cases[c][3];
+      to[1] = cases[c][4];
+    }
+    pauli_sum G;
+    jw_excitation(n, k, from, to, &G);
+    assert_int_equal((int)G.len, k == 1 ? 2 : 8); /* 2 and 8 words (REFERENCES.md, common practice) */
+    uint64_t x[8], z[8];
+    double m[8];
+    for (size_t t = 0; t < G.len; t++) {
+      x[t] = pauli_sum_x(&G, t)[0];
+      z[t] = pauli_sum_z(&G, t)[0];
+      assert_true(fabs(cimag(G.c[t])) < 1e-15);
+      m[t] = creal(G.c[t]);
+    }
+    sv_gen *g = sv_gen_new(n, (int)G.len, x, z, m);
+    assert_non_null(g);
+    assert_true(sv_gen_coverage(g) == (k == 1 ? 0.5 : 0.125));
+    check_gen(&r, n, (int)G.len, x, z, m, g);
+    sv_gen_free(g);
+    pauli_sum_free(&G);
+  }
+  for (int trial = 0; trial < 20; trial++) {
+    uint64_t x = 1 + util_rng_next(&r) % 511, z = util_rng_next(&r) % 512;
+    double m = util_rng_uniform(&r) - 0.5;
+    sv_gen *g = sv_gen_new(n, 1, &x, &z, &m);
+    assert_non_null(g);
+    assert_true(sv_gen_coverage(g) == 1.0);
+    check_gen(&r, n, 1, &x, &z, &m, g);
+    sv_gen_free(g);
+  }
+}
+
+/* Random commuting words on one X mask: fused when |h| is constant on every
+ * sub-cube (then equal to the words one by one), refused otherwise; words
+ * that do not commute or differ in X are refused. */
+static void test_fused_random(void **state) {
+  (void)state;
+  util_rng r;
+  util_rng_seed(&r, 17);
+  int fused = 0, refused = 0;
+  for (int trial = 0; trial < 60; trial++) {
+    int n = 3 + trial % 8, count = 2 + (int)(util_rng_next(&r) % 4);
+    uint64_t all = ((uint64_t)1 << n) - 1, x[6], z[6];
+    double m[6];
+    x[0] = 1 + util_rng_next(&r) % all;
+    for (int k = 0; k < count; k++) {
+      x[k] = x[0];
+      do z[k] = util_rng_next(&r) & all;
+      while (((__builtin_popcountll(x[k] & z[k]) ^ __builtin_popcountll(x[0] & z[0])) & 1) != 0);
+      /* keep Z letters away from x most of the time: X/Y variants merge */
+      if (trial % 2) z[k] &= x[0];
+      m[k] = util_rng_uniform(&r) - 0.5;
+    }
+    sv_gen *g = sv_gen_new(n, count, x, z, m);
+    if (g) {
+      fused++;
+      check_gen(&r, n, count, x, z, m, g);
+      sv_gen_free(g);
+    } else
+      refused++;
+  }
+  assert_true(fused > 0 && refused > 0);
+  uint64_t x[2] = {3, 3}, z[2] = {0, 1}; /* X0 X1 and Y0 X1 anticommute */
+  double m[2] = {1, 1};
+  assert_null(sv_gen_new(4, 2, x, z, m));
+  x[1] = 5;
+  z[1] = 0;
+  assert_null(sv_gen_new(4, 2, x, z, m));
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_rotation_matches_dense), cmocka_unit_test(test_word_inner),
       cmocka_unit_test(test_op_matches_dense),       cmocka_unit_test(test_op_hermitian_real),
       cmocka_unit_test(test_memory_refusal),         cmocka_unit_test(test_thread_independence),
+      cmocka_unit_test(test_fused_excitations),      cmocka_unit_test(test_fused_random),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }
