@@ -54,8 +54,12 @@ void ans_table_print(const ans_plan *pl, const ir_recipe *r, const ans_problem *
   const ans_pool *pool = &pl->pool;
   int tapered = p->taper && p->taper->nsym > 0;
   char *ct = choose_text(r);
-  fprintf(out, "%s: %zu generator%s chosen from a pool of %zu (%s, %s)\n", r->path ? r->path : "recipe",
-          pl->norder, pl->norder == 1 ? "" : "s", pool->len, ct, order_text(r));
+  if (pl->grow)
+    fprintf(out, "%s: a pool of %zu generator%s, ranked by |gradient| for `%s` (the run picks)\n",
+            r->path ? r->path : "recipe", pool->len, pool->len == 1 ? "" : "s", ct);
+  else
+    fprintf(out, "%s: %zu generator%s chosen from a pool of %zu (%s, %s)\n", r->path ? r->path : "recipe",
+            pl->norder, pl->norder == 1 ? "" : "s", pool->len, ct, order_text(r));
   free(ct);
   fprintf(out, "encoding %s, %d qubits", enc_name(r->encoding), p->nqubits);
   if (tapered) fprintf(out, " (%d removed by tapering)", p->taper->nsym);
@@ -65,8 +69,6 @@ void ans_table_print(const ans_plan *pl, const ir_recipe *r, const ans_problem *
   fputc('\n', out);
   if (pl->screened)
     fprintf(out, "gradient = dE/dtheta at the reference (exact, noise-free, for the active-space Hamiltonian)\n");
-  if (pl->grow)
-    fprintf(out, "`grow` picks generators during the run; the pool is listed by |gradient| at the reference\n");
   if (r->scan.active && r->npoints > 1)
     fprintf(out, "scan point 1 of %d (%s = %g)\n", r->npoints, r->scan.name ? r->scan.name : "?", r->points[0].param);
   size_t tw = 9;
@@ -81,7 +83,7 @@ void ans_table_print(const ans_plan *pl, const ir_recipe *r, const ans_problem *
     const ans_gen *g = &pool->gen[pl->order[i]];
     char gb[40];
     if (isnan(g->gradient)) snprintf(gb, sizeof gb, "-");
-    else snprintf(gb, sizeof gb, "%.10f", g->gradient);
+    else snprintf(gb, sizeof gb, "%.10f", fabs(g->gradient) < 5e-11 ? 0.0 : g->gradient); /* no "-0.0000000000" */
     fprintf(out, "%5zu  %-12s  %-*s  %16s  %-3s %-3s %-3s%s%s %5d %5d\n", i, ans_kind_name(g->info.kind), (int)tw,
             g->info.text, gb, sig_mark(g->sig.sym[0]), sig_mark(g->sig.sym[1]), sig_mark(g->sig.sym[2]),
             tapered ? " " : "", tapered ? sig_mark(g->sig.z2) : "", g->cnot, g->info.line);

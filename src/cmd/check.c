@@ -5,6 +5,7 @@
 #include "cmd/cmd.h"
 #include "cairn/front.h"
 #include "cairn/ir.h"
+#include "cairn/pool.h"
 
 #include <stdio.h>
 #include <string.h>
@@ -38,6 +39,7 @@ int cmd_check(const cmd_env *env, int argc, char **argv) {
     ir_recipe *r = front_resolve(d, f, NULL);
     /* The symmetry type check of the generators (a later stage) runs here,
      * on a resolved recipe, reporting through d. */
+    if (r && diag_errors(d) == before) ans_check(r, d);
     if (r && diag_errors(d) == before) summary(r);
     else if (status == 0) status = 1;
     ir_recipe_free(r);
