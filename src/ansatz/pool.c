@@ -65,6 +65,7 @@ static int gen_same(const pauli_sum *w, size_t oa, size_t la, const pauli_sum *v
   return 1;
 }
 
+/* Rebuild the duplicate table over the pool (open addressing). */
 static void dd_rehash(ans_build *b, size_t nslots) {
   free(b->dd.slot);
   b->dd.slot = xcalloc(nslots, sizeof *b->dd.slot);
@@ -107,7 +108,15 @@ static long append_gen(ans_build *b, const ans_gen_info *info, const pauli_sum *
   size_t slot = 0;
   long dup = dd_find(b, G, 0, G->len, &slot);
   if (dup >= 0) {
-    if (t->dup++ == 0) t->dup_of = dup;
+    /* Overlapping rule families (pair doubles within doubles, ...) are a
+     * normal way to compose a pool: their copies go quietly.  A copy that
+     * involves an explicit word or excitation is worth a warning. */
+    ir_rule_kind k0 = b->r->rules[pool->gen[dup].info.rule].kind, k1 = b->r->rules[b->rule].kind;
+    if (k0 == IR_RULE_WORD || k0 == IR_RULE_EXCITE || k1 == IR_RULE_WORD || k1 == IR_RULE_EXCITE) {
+      if (t->dup++ == 0) t->dup_of = dup;
+    } else {
+      t->dup_quiet++;
+    }
     return -1;
   }
   UTIL_GROW(pool->gen, pool->cap, pool->len + 1);
@@ -169,6 +178,7 @@ static void make_real(pauli_sum *G) {
   G->len = m;
 }
 
+/* Does every word of G commute with the Z word tau (even overlap of X parts)? */
 static int commutes_with_z(int nw, const pauli_sum *G, const uint64_t *tau) {
   for (size_t k = 0; k < G->len; k++) {
     const uint64_t *x = pauli_sum_x(G, k);

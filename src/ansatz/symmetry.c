@@ -360,17 +360,26 @@ void ans_rule_messages(ans_build *b) {
                     g0->info.text, ot);
       else
         diag_report(d, DIAG_WARNING, rule->span,
-                    "%zu generator%s of `%s` duplicate%s earlier ones and %s dropped", t->dup, t->dup == 1 ? "" : "s",
-                    rt, t->dup == 1 ? "s" : "", t->dup == 1 ? "is" : "are");
+                    "%zu generator%s of `%s` duplicate%s explicit generators and %s dropped", t->dup,
+                    t->dup == 1 ? "" : "s", rt, t->dup == 1 ? "s" : "", t->dup == 1 ? "is" : "are");
       diag_note(d, g0->span, "%s first made by `%s` here", g0->info.text, ot);
       free(ot);
     }
     if (!t->unexpanded && !t->had_error && t->made == 0) {
       if (t->tried == 0)
         diag_report(d, DIAG_WARNING, rule->span, "`%s` makes no generators for this reference and active space", rt);
-      else if (!is_explicit(rule))
-        diag_report(d, DIAG_WARNING, rule->span, "no generator of `%s` survives (%zu proposed, all dropped)", rt,
-                    t->tried);
+      else if (!is_explicit(rule)) {
+        size_t z2 = 0;
+        if (tp)
+          for (int k = 0; k < tp->nsym; k++) z2 += t->z2_drop[k];
+        util_buf why = {0};
+        if (t->dup + t->dup_quiet) util_buf_printf(&why, ", %zu copies of earlier generators", t->dup + t->dup_quiet);
+        if (z2) util_buf_printf(&why, ", %zu breaking a tapered symmetry", z2);
+        if (t->vanished + t->vanished_taper) util_buf_printf(&why, ", %zu zero", t->vanished + t->vanished_taper);
+        diag_report(d, DIAG_WARNING, rule->span, "no generator of `%s` survives (%zu proposed%s)", rt, t->tried,
+                    why.s ? why.s : "");
+        util_buf_free(&why);
+      }
     }
     free(rt);
   }
