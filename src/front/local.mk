@@ -57,7 +57,7 @@ EXTRA_DIST += tests/golden/recipes tests/golden/fmt tests/golden/diff tests/gold
 ## (and address,undefined); .ci/run runs it for 60 seconds.  It is built from
 ## the front end's own sources and the few it calls (not from libcairn.a), so
 ## it does not depend on the numerical modules building with clang.
-FRONT_FUZZ_SOURCES = $(srcdir)/tests/fuzz/fuzz_recipe.c $(srcdir)/tests/fuzz/chem_absent.c \
+FRONT_FUZZ_FILES = $(srcdir)/tests/fuzz/fuzz_recipe.c $(srcdir)/tests/fuzz/chem_absent.c \
 	$(srcdir)/src/front/ast.c $(srcdir)/src/front/parse.c $(srcdir)/src/front/suggest.c \
 	$(srcdir)/src/front/resolve.c $(srcdir)/src/front/eval.c $(srcdir)/src/front/space.c \
 	$(srcdir)/src/front/ir.c $(srcdir)/src/front/fmt.c $(srcdir)/src/front/diff.c \
@@ -66,9 +66,9 @@ FRONT_FUZZ_SOURCES = $(srcdir)/tests/fuzz/fuzz_recipe.c $(srcdir)/tests/fuzz/che
 EXTRA_DIST += tests/fuzz/fuzz_recipe.c tests/fuzz/chem_absent.c tests/fuzz/recipe.dict
 CLEANFILES += tests/fuzz/fuzz_recipe
 fuzz: tests/fuzz/fuzz_recipe
-tests/fuzz/fuzz_recipe: $(FRONT_FUZZ_SOURCES) grammar/recipe.tab.h grammar/recipe.lex.h
+tests/fuzz/fuzz_recipe: $(FRONT_FUZZ_FILES) grammar/recipe.tab.h grammar/recipe.lex.h
 	@case "$(CC)" in *clang*) ;; *) echo "make fuzz: needs libFuzzer: configure with CC=clang" >&2; exit 2;; esac
 	@$(MKDIR_P) tests/fuzz
 	$(AM_V_CCLD)$(CC) $(DEFS) -I$(top_builddir) $(AM_CPPFLAGS) $(CPPFLAGS) -std=gnu11 $(CAIRN_CFLAGS) $(CJSON_CFLAGS) $(CFLAGS) -fsanitize=fuzzer \
-	  -o $@ $(FRONT_FUZZ_SOURCES) $(CJSON_LIBS) -lm
+	  -o $@ $(FRONT_FUZZ_FILES) $(CJSON_LIBS) -lm
 .PHONY: fuzz
