@@ -179,6 +179,8 @@ void ans_plan_circuit(const ans_plan *pl, const ir_recipe *r, ans_circuit *c);
 /* Type the chosen generators against every symmetry still untyped (plan
  * building types only what `keep ... exactly` needs; tables want all). */
 void ans_plan_type(ans_plan *pl, const ans_problem *p);
+/* The same for one generator of the pool. */
+void ans_gen_type(ans_pool *pool, size_t k, const ans_problem *p);
 
 /* Gradient (i/2)<ref|[G, H]|ref> of the pool's generator k at a product state,
  * by closed forms over H's terms (no statevector; builds the term index, so
