@@ -178,6 +178,57 @@ static int optimize_program(opt_job *j, const ans_circuit *c, char *err, size_t 
   return rc;
 }
 
+/* The ansatz's view of a built point (borrowed pointers). */
+static void problem_of(const pipe_point *pp, const ir_recipe *r, ans_problem *prob) {
+  memset(prob, 0, sizeof *prob);
+  prob->nmodes = 2 * pp->space.norb;
+  prob->nqubits = pp->nqubits;
+  prob->norb = pp->space.norb;
+  prob->nalpha = pp->space.nalpha;
+  prob->nbeta = pp->space.nbeta;
+  prob->multiplicity = r->multiplicity;
+  prob->enc = pp->enc;
+  prob->taper = pp->taper.nsym > 0 ? &pp->taper : NULL;
+  prob->H = &pp->ham;
+  for (int s = 0; s < IR_SYM_COUNT; s++) prob->sym[s] = &pp->sym[s];
+  prob->ref_full = pp->ref_full;
+}
+
+/* objective = H + mu (X - x0)^2 for every `keep X penalty mu`. */
+static void build_objective(const pipe_point *pp, const ir_recipe *r, pauli_sum *objective) {
+  pauli_sum_init(objective, pp->nqubits);
+  pauli_sum_copy(objective, &pp->ham);
+  for (int s = 0; s < IR_SYM_COUNT; s++)
+    if (r->keep[s].policy == IR_KEEP_PENALTY)
+      add_penalty(objective, &pp->sym[s], sym_target(r, (ir_symmetry)s), r->keep[s].value);
+}
+
+int run_circuit(const ir_recipe *r, int k, diag_ctx *d, ans_circuit *c) {
+  memset(c, 0, sizeof *c);
+  pipe_point pp;
+  if (pipe_point_build(r, k, d, &pp) != 0) return -1;
+  ans_problem prob;
+  problem_of(&pp, r, &prob);
+  ans_plan plan;
+  int rc = ans_plan_build(&plan, r, &prob, d);
+  if (rc == 0 && plan.grow) {
+    pauli_sum objective;
+    build_objective(&pp, r, &objective);
+    ans_grow_result gr;
+    char err[512];
+    if (ans_grow(&plan, r, &objective, &gr, err, sizeof err) != 0) {
+      diag_report(d, DIAG_ERROR, r->choose.span, "%s", err);
+      rc = -1;
+    }
+    ans_grow_result_free(&gr);
+    pauli_sum_free(&objective);
+  }
+  if (rc == 0) ans_plan_circuit(&plan, r, c);
+  ans_plan_free(&plan);
+  pipe_point_free(&pp);
+  return rc;
+}
+
 static void fill_energies(rep_point *out, const chem_refs *refs, const chem_space *cs) {
   out->e.has_nuclear = 1;
   out->e.nuclear = cs->e_nuclear;
@@ -240,18 +291,8 @@ int run_point(const ir_recipe *r, int k, diag_ctx *d, const run_options *o, run_
   }
   fill_energies(out, &pp.refs, &pp.space);
 
-  ans_problem prob = {0};
-  prob.nmodes = 2 * pp.space.norb;
-  prob.nqubits = pp.nqubits;
-  prob.norb = pp.space.norb;
-  prob.nalpha = pp.space.nalpha;
-  prob.nbeta = pp.space.nbeta;
-  prob.multiplicity = r->multiplicity;
-  prob.enc = pp.enc;
-  prob.taper = pp.taper.nsym > 0 ? &pp.taper : NULL;
-  prob.H = &pp.ham;
-  for (int s = 0; s < IR_SYM_COUNT; s++) prob.sym[s] = &pp.sym[s];
-  prob.ref_full = pp.ref_full;
+  ans_problem prob;
+  problem_of(&pp, r, &prob);
 
   ans_plan plan;
   if (ans_plan_build(&plan, r, &prob, d) != 0) {
@@ -261,13 +302,8 @@ int run_point(const ir_recipe *r, int k, diag_ctx *d, const run_options *o, run_
     return -1;
   }
 
-  /* The objective: H plus mu (X - x0)^2 for every `keep X penalty mu`. */
   pauli_sum objective;
-  pauli_sum_init(&objective, pp.nqubits);
-  pauli_sum_copy(&objective, &pp.ham);
-  for (int s = 0; s < IR_SYM_COUNT; s++)
-    if (r->keep[s].policy == IR_KEEP_PENALTY)
-      add_penalty(&objective, &pp.sym[s], sym_target(r, (ir_symmetry)s), r->keep[s].value);
+  build_objective(&pp, r, &objective);
 
   progress_ctx pc = {k, o->npoints, t0, 0};
   opt_job job = {r, &pp.space, &objective, NULL, o, &pc, NULL, {0}};

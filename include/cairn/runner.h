@@ -12,6 +12,7 @@
 #ifndef CAIRN_RUNNER_H
 #define CAIRN_RUNNER_H
 
+#include "cairn/ansatz.h"
 #include "cairn/diag.h"
 #include "cairn/ir.h"
 #include "cairn/report.h"
@@ -36,6 +37,12 @@ void run_carry_free(run_carry *c);
  * (out->failure says why; diagnostics went through d). */
 int run_point(const ir_recipe *r, int k, diag_ctx *d, const run_options *o, run_carry *carry,
               rep_point *out);
+
+/* The rotation program of point k without optimizing it (for `cairn build`
+ * and `cairn diff`): pipeline, generators, selection and order.  A `grow`
+ * recipe has to simulate to know its generators, and does.  c is
+ * initialized here.  Returns 0, or -1 after reporting through d. */
+int run_circuit(const ir_recipe *r, int k, diag_ctx *d, ans_circuit *c);
 
 /* Fill the run-level fields of rep (recipe name, file, scan name and unit,
  * basis) and run every point.  Returns 0 when every point ran and every check

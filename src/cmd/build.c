@@ -4,6 +4,7 @@
  *   cairn build FILE [-o OUT] [--format listing|qasm2|qasm3] [--bind REPORT
  *               [--point K]] [--tree] [--short] [--no-passes] [--json]
  *   cairn build --program PROGRAM.json ...   a rotation program (json.h) instead of a recipe
+ *   --save-program FILE                      also write the rotation program lowered, as JSON
  *
  * Without -o, a recipe's `emit` statements say what to write; `-o -` writes to
  * standard output (the counts then go to standard error). */
@@ -14,6 +15,7 @@
 #include "cairn/diag.h"
 #include "cairn/front.h"
 #include "cairn/gates.h"
+#include "cairn/runner.h"
 #include "cairn/ir.h"
 #include "cairn/json.h"
 #include "cairn/util.h"
@@ -24,7 +26,7 @@
 #include <string.h>
 
 typedef struct build_args {
-  const char *file, *out, *bind;
+  const char *file, *out, *bind, *save;
   int program, json, point, have_format;
   gate_format format;
   gate_opts opts;
@@ -36,7 +38,7 @@ static int parse_args(int argc, char **argv, build_args *a) {
   for (int i = 1; i < argc; i++) {
     const char *s = argv[i];
     if ((strcmp(s, "-o") == 0 || strcmp(s, "--format") == 0 || strcmp(s, "--bind") == 0 ||
-         strcmp(s, "--point") == 0) &&
+         strcmp(s, "--point") == 0 || strcmp(s, "--save-program") == 0) &&
         i + 1 >= argc)
       return cmd_usage_error("build", "%s needs a value", s);
     if (strcmp(s, "-o") == 0) {
@@ -47,6 +49,8 @@ static int parse_args(int argc, char **argv, build_args *a) {
       a->have_format = 1;
     } else if (strcmp(s, "--bind") == 0) {
       a->bind = argv[++i];
+    } else if (strcmp(s, "--save-program") == 0) {
+      a->save = argv[++i];
     } else if (strcmp(s, "--point") == 0) {
       char *end;
       long v = strtol(argv[++i], &end, 10);
@@ -172,19 +176,16 @@ static cJSON *counts_json(const char *src, const ans_circuit *c, const gate_coun
   return o;
 }
 
-/* Wiring point for the recipe pipeline: the checked recipe (point `point`
- * of a scan) to its rotation program (chemistry -> Hamiltonian -> generators
- * -> screening and order).  Until the generator stage is part of the build, a
- * recipe cannot be lowered here and the command says so. */
+/* The checked recipe (point `point` of a scan) to its rotation program:
+ * chemistry -> Hamiltonian -> generators -> screening and order (runner.h). */
 static int recipe_circuit(const ir_recipe *r, int point, diag_ctx *d, ans_circuit *c) {
-  (void)point;
-  (void)d;
-  (void)c;
-  fprintf(stderr,
-          "cairn build: %s: lowering a recipe needs the generator stage of the pipeline, which is not in this "
-          "build yet; lower a rotation program with --program FILE.json\n",
-          r->path);
-  return 2;
+  int npoints = r->npoints > 0 ? r->npoints : 1;
+  if (point < 0 || point >= npoints) {
+    fprintf(stderr, "cairn build: %s has %d point%s; --point %d is out of range\n", r->path, npoints,
+            npoints == 1 ? "" : "s", point);
+    return 2;
+  }
+  return run_circuit(r, point, d, c) == 0 ? 0 : 1;
 }
 
 int cmd_build(const cmd_env *env, int argc, char **argv) {
@@ -250,6 +251,20 @@ int cmd_build(const cmd_env *env, int argc, char **argv) {
     if (npts > 1)
       fprintf(stderr, "cairn build: note: %s has %d points; bound the values of point %d (choose with --point K)\n",
               a.bind, npts, a.point);
+  }
+  if (a.save) {
+    cJSON *j = json_circuit(&c);
+    char *s = json_print(j);
+    cJSON_Delete(j);
+    size_t len = strlen(s);
+    s[len++] = '\n';  /* json_print's buffer has room: it held the NUL */
+    int w = util_write_atomic(a.save, s, len);
+    free(s);
+    if (w != 0) {
+      fprintf(stderr, "cairn build: cannot write %s: %s\n", a.save, strerror(errno));
+      rc = 2;
+      goto done;
+    }
   }
   gate_meta meta = {a.file, values, a.bind};
   FILE *say = a.out && strcmp(a.out, "-") == 0 ? stderr : stdout;
