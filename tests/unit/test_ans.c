@@ -833,12 +833,12 @@ static void test_wide_register(void **state) {
       assert_true(f.s.prob.nqubits > 64 - 4 * taper);
       assert_true(pool->len > 1000);
       double worst = 0;
-      for (size_t k = 0; k < pool->len; k += 37) {
+      for (size_t k = 0; k < pool->len; k += 53) {
         double g = generic_gradient(pool, k, f.s.prob.H, f.pl.ref.bits);
         worst = fmax(worst, fabs(g - pool->gen[k].gradient));
       }
       assert_true(worst < 1e-12);
-      for (size_t k = 0; k < pool->len; k += 101) {
+      for (size_t k = 0; k < pool->len; k += 211) {
         ans_gen_type(&f.pl.pool, k, &f.s.prob);
         const ans_gen *g = &pool->gen[k];
         if (g->info.kind == ANS_DOUBLE || g->info.kind == ANS_QUBIT_DOUBLE) {
