@@ -180,10 +180,7 @@ int run_circuit(const ir_recipe *r, int k, diag_ctx *d, ans_circuit *c) {
   pipe_point pp;
   if (pipe_point_build(r, k, d, &pp) != 0) return -1;
   ans_problem prob;
-  if (ans_problem_from_point(&prob, r, &pp, pp.ref_full, d) != 0) {
-    pipe_point_free(&pp);
-    return -1;
-  }
+  ans_problem_from_point(&prob, r, &pp);
   ans_plan plan;
   int rc = ans_plan_build(&plan, r, &prob, d);
   if (rc == 0 && plan.grow) {
@@ -268,11 +265,10 @@ int run_point(const ir_recipe *r, int k, diag_ctx *d, const run_options *o, run_
 
   ans_problem prob;
   ans_plan plan;
-  int planned = 0;
-  if (ans_problem_from_point(&prob, r, &pp, pp.ref_full, d) != 0 ||
-      (planned = 1, ans_plan_build(&plan, r, &prob, d) != 0)) {
+  ans_problem_from_point(&prob, r, &pp);
+  if (ans_plan_build(&plan, r, &prob, d) != 0) {
     out->failure = failure_text("generators", d, NULL);
-    if (planned) ans_plan_free(&plan); /* the plan is freed even when it failed */
+    ans_plan_free(&plan); /* the plan is freed even when it failed */
     pipe_point_free(&pp);
     out->seconds = util_now() - t0;
     return -1;

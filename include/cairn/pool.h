@@ -78,13 +78,8 @@ typedef struct ans_problem {
  * given): encoder, Hamiltonian, tapering (sector of the reference bits),
  * symmetry operators, reference bits. */
 typedef struct ans_setup {
-  ans_problem prob;
-  qubit_encoder *enc;
-  pauli_sum H_full, H;        /* H: on the ansatz register */
-  int has_h;
-  qubit_taper taper;
-  pauli_sum sym[IR_SYM_COUNT];
-  uint64_t *ref_full;
+  ans_problem prob;           /* borrows from pp */
+  struct pipe_point *pp;      /* the pipeline's results (pipe.h), owned */
 } ans_setup;
 
 /* Build the setup of recipe r; cs (may be NULL) is the active space of the point
@@ -99,15 +94,10 @@ void ans_setup_free(ans_setup *s);
 int ans_reference_bits(const ir_recipe *r, const qubit_encoder *enc, int norb, int nalpha, int nbeta,
                        diag_ctx *d, uint64_t *out);
 
-/* The problem of one pipeline point (pipe.h) without rebuilding anything:
- * ref_bits is the caller's buffer (pauli_nwords(2 norb) words) for the
- * reference bits (ans_reference_bits).  The pipeline tapers in the sector of
- * the Hartree-Fock state, so `reference bits` in another sector is reported
- * at the reference (then use ans_setup_init, which tapers in the sector of
- * the bits).  Returns 0 or -1. */
+/* The problem of one pipeline point (pipe.h), borrowing everything from it
+ * (the pipeline tapers in the sector of the recipe's reference bits). */
 struct pipe_point;
-int ans_problem_from_point(ans_problem *p, const ir_recipe *r, const struct pipe_point *pp, uint64_t *ref_bits,
-                           diag_ctx *d);
+void ans_problem_from_point(ans_problem *p, const ir_recipe *r, const struct pipe_point *pp);
 
 /* The reference state on the ansatz register. */
 typedef struct ans_reference {
