@@ -54,3 +54,12 @@ CHEM_REF_TESTS = tests/ref/chem_scf.py tests/ref/chem_corr.py tests/ref/chem_roh
 	tests/ref/chem_cmd_integrals.py
 TESTS += $(CHEM_REF_TESTS)
 EXTRA_DIST += $(CHEM_REF_TESTS) tests/ref/chem_common.py tests/ref/chem_heh.gbs tests/ref/chem_water.cairn tests/golden/fcidump tests/golden/basis
+
+## benchmark (make bench): integrals + SCF and the exact solver, beside psi4
+noinst_PROGRAMS += tests/bench/chem_bench
+tests_bench_chem_bench_SOURCES = tests/bench/chem_bench.c
+tests_bench_chem_bench_LDADD = $(CAIRN_LIBS)
+EXTRA_DIST += tests/bench/chem_bench.py
+BENCH_TARGETS += bench-chem
+bench-chem: tests/bench/chem_bench$(EXEEXT)
+	$(PYTHON) $(srcdir)/tests/bench/chem_bench.py $(abs_top_builddir)
