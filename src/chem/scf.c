@@ -462,6 +462,7 @@ void scf_active_space(const scf_result *r, const int *core, int ncore, const int
   out->nalpha = nalpha;
   out->nbeta = nbeta;
   out->e_nuclear = r->e_nuclear;
+  out->has_nuclear = 1;
   out->e_constant = r->e_nuclear + ecore;
   out->h1 = xmalloc((size_t)m * m * sizeof(double));
   {

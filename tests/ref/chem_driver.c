@@ -199,7 +199,7 @@ int main(int argc, char **argv) {
     cJSON_AddItemToObject(j, "nalpha", cJSON_CreateNumber(s.nalpha));
     cJSON_AddItemToObject(j, "nbeta", cJSON_CreateNumber(s.nbeta));
     cJSON_AddItemToObject(j, "constant", json_number(s.e_constant));
-    if (!fcidump) cJSON_AddItemToObject(j, "nuclear", json_number(s.e_nuclear));
+    if (s.has_nuclear) cJSON_AddItemToObject(j, "nuclear", json_number(s.e_nuclear));
     if (refs.has_hf) cJSON_AddItemToObject(j, "hf", json_number(refs.hf));
     cJSON_AddItemToObject(j, "reference", json_number(chem_reference_energy(&s)));
     cJSON_AddItemToObject(j, "scf_iterations", cJSON_CreateNumber(refs.scf_iterations));
