@@ -51,7 +51,7 @@ tests_unit_test_chem_methods_LDADD = $(UNIT_LDADD)
 ## reference checks against psi4 (run live), numpy and scipy; golden messages
 CHEM_REF_TESTS = tests/ref/chem_scf.py tests/ref/chem_corr.py tests/ref/chem_rohf.py tests/ref/chem_szabo.py \
 	tests/ref/chem_boys.py tests/ref/chem_fcidump_roundtrip.py tests/ref/chem_fci_numpy.py tests/ref/chem_golden.py \
-	tests/ref/chem_cmd_integrals.py
+	tests/ref/chem_cmd_integrals.py tests/ref/chem_limits.py
 TESTS += $(CHEM_REF_TESTS)
 EXTRA_DIST += $(CHEM_REF_TESTS) tests/ref/chem_common.py tests/ref/chem_heh.gbs tests/ref/chem_water.cairn tests/golden/fcidump tests/golden/basis
 
