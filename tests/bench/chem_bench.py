@@ -7,7 +7,7 @@
    convergence (scf_type pk, e/d_convergence 1e-10, symmetry c1).
 2. The exact solver for (8e,8o) and (12e,12o): linear H8 and H12 chains,
    STO-3G, 1.8 bohr spacing (12e,12o is 853,776 determinants), beside psi4's
-   energy('fci') (detci) end to end.
+   energy('fci') end to end.
 
 Medians of CAIRN_BENCH_REPEATS runs (default 5; 3 for the exact solver, 1
 for (12e,12o)).  Wall and CPU seconds (CPU = user + system of the child
