@@ -40,7 +40,7 @@ static const command commands[] = {
      "  the exact and classical reference energies of the active space.\n"},
     {"build", cmd_build, "lower the ansatz to gates",
      "cairn build [-o OUT] [--format listing|qasm2|qasm3] [--bind REPORT [--point K]]\n"
-     "            [--tree] [--short] [--no-passes] [--json] [--program] FILE\n"
+     "            [--tree] [--short] [--no-passes] [--json] [--program] [--save-program F] FILE\n"
      "  Lower the recipe's ansatz to a gate circuit; print gate counts (cx, single,\n"
      "  total, depth, per generator).  Without -o, write the recipe's `emit` files;\n"
      "  `-o -` writes to standard output.  The format follows --format, else the\n"
@@ -49,7 +49,7 @@ static const command commands[] = {
      "  report (point K, default 0); --tree uses balanced cx trees (lower depth);\n"
      "  --short lowers excitations as short circuits; --no-passes skips the\n"
      "  cancellation passes; --program reads a rotation program in JSON instead of\n"
-     "  a recipe.\n"},
+     "  a recipe; --save-program FILE writes the rotation program as JSON.\n"},
     {"integrals", cmd_integrals, "write the active-space Hamiltonian as FCIDUMP",
      "cairn integrals -o OUT.fcidump FILE\n"
      "  Compute the active-space integrals of the recipe's molecule and write them\n"

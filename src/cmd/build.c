@@ -4,6 +4,7 @@
  *   cairn build FILE [-o OUT] [--format listing|qasm2|qasm3] [--bind REPORT
  *               [--point K]] [--tree] [--short] [--no-passes] [--json]
  *   cairn build --program PROGRAM.json ...   a rotation program (json.h) instead of a recipe
+ *   --save-program FILE                      also write the rotation program lowered, as JSON
  *
  * Without -o, a recipe's `emit` statements say what to write; `-o -` writes to
  * standard output (the counts then go to standard error). */
@@ -25,7 +26,7 @@
 #include <string.h>
 
 typedef struct build_args {
-  const char *file, *out, *bind;
+  const char *file, *out, *bind, *save;
   int program, json, point, have_format;
   gate_format format;
   gate_opts opts;
@@ -37,7 +38,7 @@ static int parse_args(int argc, char **argv, build_args *a) {
   for (int i = 1; i < argc; i++) {
     const char *s = argv[i];
     if ((strcmp(s, "-o") == 0 || strcmp(s, "--format") == 0 || strcmp(s, "--bind") == 0 ||
-         strcmp(s, "--point") == 0) &&
+         strcmp(s, "--point") == 0 || strcmp(s, "--save-program") == 0) &&
         i + 1 >= argc)
       return cmd_usage_error("build", "%s needs a value", s);
     if (strcmp(s, "-o") == 0) {
@@ -48,6 +49,8 @@ static int parse_args(int argc, char **argv, build_args *a) {
       a->have_format = 1;
     } else if (strcmp(s, "--bind") == 0) {
       a->bind = argv[++i];
+    } else if (strcmp(s, "--save-program") == 0) {
+      a->save = argv[++i];
     } else if (strcmp(s, "--point") == 0) {
       char *end;
       long v = strtol(argv[++i], &end, 10);
@@ -248,6 +251,20 @@ int cmd_build(const cmd_env *env, int argc, char **argv) {
     if (npts > 1)
       fprintf(stderr, "cairn build: note: %s has %d points; bound the values of point %d (choose with --point K)\n",
               a.bind, npts, a.point);
+  }
+  if (a.save) {
+    cJSON *j = json_circuit(&c);
+    char *s = json_print(j);
+    cJSON_Delete(j);
+    size_t len = strlen(s);
+    s[len++] = '\n';  /* json_print's buffer has room: it held the NUL */
+    int w = util_write_atomic(a.save, s, len);
+    free(s);
+    if (w != 0) {
+      fprintf(stderr, "cairn build: cannot write %s: %s\n", a.save, strerror(errno));
+      rc = 2;
+      goto done;
+    }
   }
   gate_meta meta = {a.file, values, a.bind};
   FILE *say = a.out && strcmp(a.out, "-") == 0 ? stderr : stdout;

@@ -21,6 +21,11 @@ grep -q "^wrote $tmp/a.gates (listing, [0-9]* bytes)$" "$tmp/say" || no "wrote l
 cmp -s "$tmp/a.gates" "$tmp/c.gates" || no "two runs differ"
 "$CAIRN" build --program "$prog" --json | /usr/bin/python3 -c 'import json,sys; j=json.load(sys.stdin); assert j["gates"]["cnot"] > 0 and len(j["generators"]) == 3' || no "--json counts"
 
+# the rotation program written back reads in and lowers to the same listing
+"$CAIRN" build --program "$prog" --save-program "$tmp/p.json" -o "$tmp/d.gates" >/dev/null || no "--save-program"
+"$CAIRN" build --program "$tmp/p.json" -o "$tmp/e.gates" >/dev/null || no "saved program does not read back"
+[ "$(tail -n +3 "$tmp/d.gates")" = "$(tail -n +3 "$tmp/e.gates")" ] || no "saved program lowers differently"
+
 # a failed write keeps the old file and leaves no temporary beside it
 echo old >"$tmp/keep.gates"
 echo '{"points": [{"parameters": [1, 2]}]}' >"$tmp/short.json"
@@ -29,7 +34,7 @@ grep -q 'points\[0\].parameters has 2 values; the program has 3 parameters' "$tm
 [ "$(cat "$tmp/keep.gates")" = old ] || no "old file clobbered"
 if "$CAIRN" build --program "$prog" -o "$tmp/nodir/x.gates" 2>"$tmp/err" >/dev/null; then no "write into a missing directory succeeded"; else rc=$?; [ $rc -eq 2 ] || no "exit $rc for an I/O error"; fi
 grep -q "cannot write $tmp/nodir/x.gates" "$tmp/err" || no "I/O error message: $(cat "$tmp/err")"
-[ -z "$(ls "$tmp" | grep -v -e '\.gates$' -e '\.qasm' -e '^say$' -e '^err$' -e '^short.json$')" ] || no "temporary files left: $(ls "$tmp")"
+[ -z "$(ls "$tmp" | grep -v -e '\.gates$' -e '\.qasm' -e '^say$' -e '^err$' -e '^short.json$' -e '^p.json$')" ] || no "temporary files left: $(ls "$tmp")"
 
 # bound values from a report: the listing lists them, OpenQASM 3.0 has constants
 echo '{"points": [{"parameters": [0.25, -0.5, 1e-3]}]}' >"$tmp/r.json"
