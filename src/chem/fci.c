@@ -40,6 +40,10 @@
 #include <omp.h>
 #endif
 
+/* Below this many determinants the sigma loops run on one thread: starting
+ * threads would cost more than the work. */
+enum { FCI_PAR = 20000 };
+
 /* Strings of k electrons in n orbitals, and their single replacements. */
 typedef struct strings {
   int n, k;
@@ -143,7 +147,7 @@ static void same_spin(const strings *s, const double *k, const double *g, sparse
   int32_t **cols = xmalloc((size_t)N * sizeof(int32_t *));
   double **vals = xmalloc((size_t)N * sizeof(double *));
   long *cnt = xmalloc((size_t)N * sizeof(long));
-#pragma omp parallel
+#pragma omp parallel if (N > 2000)
   {
     double *acc = xcalloc((size_t)N, sizeof(double));
     char *mark = xcalloc((size_t)N, 1);
@@ -215,7 +219,7 @@ typedef struct fci {
 /* out = a^T for a (rows x cols), in cache-sized tiles. */
 static void transpose(const double *a, long rows, long cols, double *out) {
   enum { TILE = 32 };
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if (rows * cols > FCI_PAR)
   for (long r0 = 0; r0 < rows; r0 += TILE)
     for (long c0 = 0; c0 < cols; c0 += TILE) {
       long r1 = r0 + TILE < rows ? r0 + TILE : rows, c1 = c0 + TILE < cols ? c0 + TILE : cols;
@@ -232,7 +236,7 @@ static void fci_sigma(const fci *f, const double *c, double *sigma) {
    * sigma^T[Ib][:] = sum_Jb Hb(Ib, Jb) C^T[Jb][:] */
   double *ct = f->ct, *st = f->st;
   transpose(c, Na, Nb, ct);
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if (Na * Nb > FCI_PAR)
   for (long Ib = 0; Ib < Nb; Ib++) {
     double *sr = st + Ib * Na;
     for (long Ia = 0; Ia < Na; Ia++) sr[Ia] = 0;
@@ -244,7 +248,7 @@ static void fci_sigma(const fci *f, const double *c, double *sigma) {
   }
   transpose(st, Nb, Na, sigma);
   /* same spin, alpha: sigma[Ia][:] += sum_Ja Ha(Ia, Ja) C[Ja][:] */
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if (Na * Nb > FCI_PAR)
   for (long Ia = 0; Ia < Na; Ia++) {
     double *sr = sigma + Ia * Nb;
     for (long x = f->Ha.row[Ia]; x < f->Ha.row[Ia + 1]; x++) {
@@ -261,7 +265,7 @@ static void fci_sigma(const fci *f, const double *c, double *sigma) {
     long B = Na - a0 < f->block ? Na - a0 : f->block;
     size_t rows = (size_t)B * Nb;
     memset(f->D, 0, rows * np * sizeof(double));
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if (Na * Nb > FCI_PAR)
     for (long Ib = 0; Ib < Nb; Ib++) {
       for (long e = f->b.off[Ib]; e < f->b.off[Ib + 1]; e++) {
         /* E_pq |Ib> = s |Jb>  =>  <Ib|E_qp|Jb> = s */
@@ -271,7 +275,7 @@ static void fci_sigma(const fci *f, const double *c, double *sigma) {
         for (long ja = 0; ja < B; ja++) f->D[((size_t)ja * Nb + Ib) * np + pr] += sg * c[(a0 + ja) * Nb + Jb];
       }
     }
-#pragma omp parallel
+#pragma omp parallel if (Na * Nb > FCI_PAR)
     {
       int nt = 1, id = 0;
 #ifdef _OPENMP
@@ -311,7 +315,7 @@ static void fci_s2(const fci *f, const double *c, double *sigma) {
   int n = f->n;
   double sz = 0.5 * (f->a.k - f->b.k);
   double diag = sz * sz + sz + f->b.k;
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if (Na * Nb > FCI_PAR)
   for (long Ia = 0; Ia < Na; Ia++) {
     double *sr = sigma + Ia * Nb;
     for (long Ib = 0; Ib < Nb; Ib++) sr[Ib] = diag * c[Ia * Nb + Ib];
@@ -573,7 +577,7 @@ int chem_exact(const chem_space *s, chem_target t, diag_ctx *d, chem_refs *refs)
       for (long x = f.Hb.row[Is]; x < f.Hb.row[Is + 1]; x++)
         if (f.Hb.col[x] == Is) db[Is] = f.Hb.val[x];
     }
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if (Na * Nb > FCI_PAR)
     for (long Ia = 0; Ia < Na; Ia++) {
       double wv[64];
       for (int j = 0; j < n; j++) {
