@@ -202,7 +202,7 @@ int run_circuit(const ir_recipe *r, int k, diag_ctx *d, ans_circuit *c) {
 }
 
 static void fill_energies(rep_point *out, const chem_refs *refs, const chem_space *cs) {
-  out->e.has_nuclear = 1;
+  out->e.has_nuclear = cs->has_nuclear; /* FCIDUMP files do not carry it */
   out->e.nuclear = cs->e_nuclear;
   if (refs->has_hf) {
     out->e.has_hf = 1;
