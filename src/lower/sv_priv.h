@@ -32,7 +32,13 @@ static inline int sv_top_bit(uint64_t v) { return 63 - __builtin_clzll(v); }
 typedef double sv_v2 __attribute__((vector_size(16), may_alias));
 typedef long long sv_v2i __attribute__((vector_size(16)));
 /* (re, im) -> (im, re) */
-static inline sv_v2 sv_swap(sv_v2 a) { return __builtin_shuffle(a, (sv_v2i){1, 0}); }
+static inline sv_v2 sv_swap(sv_v2 a) {
+#if defined(__clang__)
+  return __builtin_shufflevector(a, a, 1, 0);
+#else
+  return __builtin_shuffle(a, (sv_v2i){1, 0});
+#endif
+}
 
 /* Software pdep / pext on masks (compile-time tables only). */
 static inline uint64_t sv_deposit(uint64_t v, uint64_t mask) {
