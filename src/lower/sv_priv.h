@@ -2,7 +2,14 @@
 #ifndef CAIRN_SV_PRIV_H
 #define CAIRN_SV_PRIV_H
 
+#include <complex.h>
 #include <stdint.h>
+
+/* C11's CMPLX; glibc leaves it out for compilers without __builtin_complex
+ * (clang).  The fallback is exact for finite parts, all we build. */
+#ifndef CMPLX
+#define CMPLX(x, y) ((double complex)((double)(x) + I * (double)(y)))
+#endif
 
 /* Reductions sum fixed chunks of this many elements (pairs or amplitudes),
  * then the chunk sums in order: the same bits for any thread count. */

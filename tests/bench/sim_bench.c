@@ -65,7 +65,7 @@ static int bench_rotation(int n, int reps) {
   sv_state_alloc(&b, n);
   util_rng r;
   util_rng_seed(&r, 1);
-  for (uint64_t i = 0; i < a.dim; i++) a.a[i] = CMPLX(util_rng_uniform(&r) - 0.5, util_rng_uniform(&r) - 0.5);
+  for (uint64_t i = 0; i < a.dim; i++) a.a[i] = (util_rng_uniform(&r) - 0.5) + I * (util_rng_uniform(&r) - 0.5);
   double bytes = 2.0 * (double)sv_vector_bytes(n); /* one read and one write of a vector */
   double *t = xmalloc((size_t)reps * sizeof *t);
   printf("{\"qubits\": %d, \"threads\": %d, \"vector_bytes\": %.0f, \"repeats\": %d", n, threads(), bytes / 2,
