@@ -24,6 +24,7 @@ struct diag_ctx {
   int errors, warnings;
   diag_file *files;
   size_t nfiles, cap;
+  char last[512]; /* most recent error message */
 };
 
 diag_ctx *diag_new(FILE *out, diag_color color) {
@@ -168,6 +169,12 @@ static void emit(diag_ctx *d, const char *word, int kind, diag_span where, const
 
 void diag_vreport(diag_ctx *d, diag_level level, diag_span where, const char *fmt, va_list ap) {
   int as_error = level == DIAG_ERROR || d->werror;
+  if (as_error) {
+    va_list aq;
+    va_copy(aq, ap);
+    vsnprintf(d->last, sizeof d->last, fmt, aq);
+    va_end(aq);
+  }
   if (as_error) d->errors++;
   else d->warnings++;
   emit(d, level == DIAG_ERROR ? "error" : "warning", level == DIAG_ERROR ? C_ERR : C_WARN, where,
@@ -196,6 +203,7 @@ void diag_help(diag_ctx *d, const char *fmt, ...) {
 }
 
 int diag_errors(const diag_ctx *d) { return d->errors; }
+const char *diag_last_error(const diag_ctx *d) { return d->last; }
 int diag_warnings(const diag_ctx *d) { return d->warnings; }
 void diag_set_werror(diag_ctx *d, int on) { d->werror = on; }
 FILE *diag_stream(const diag_ctx *d) { return d->out; }

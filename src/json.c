@@ -11,10 +11,34 @@
 
 cJSON *json_number(double x) { return cJSON_CreateNumber(x); }
 
+/* Numbers go out in the shortest spelling that reads back exactly: cJSON's own
+ * printer accepts a 15-digit spelling that reads back only within an epsilon
+ * (0.7794640752287191 prints as 0.779464075228719).  The tree is copied and
+ * every finite number turned into raw text before printing; integers are
+ * spelled as integers (10, not 1e1). */
+static void exact_numbers(cJSON *n) {
+  for (; n; n = n->next) {
+    double x = n->valuedouble;
+    if (cJSON_IsNumber(n) && isfinite(x)) {
+      char buf[32];
+      if (x == floor(x) && fabs(x) < 1e15) snprintf(buf, sizeof buf, "%.0f", x);
+      else util_fmt_double(buf, x);
+      n->valuestring = xstrdup(strcmp(buf, "-0") == 0 ? "0" : buf);
+      n->type = cJSON_Raw;
+    }
+    if (n->child) exact_numbers(n->child);
+  }
+}
+
 char *json_print(const cJSON *j) {
-  /* cJSON prints 15 significant digits and falls back to 17 when that does
-   * not read back exactly, so numbers survive a round trip. */
-  char *s = cJSON_Print(j);
+  cJSON *copy = cJSON_Duplicate(j, 1);
+  if (!copy) {
+    fprintf(stderr, "cairn: out of memory printing JSON\n");
+    exit(2);
+  }
+  exact_numbers(copy);
+  char *s = cJSON_Print(copy);
+  cJSON_Delete(copy);
   if (!s) {
     fprintf(stderr, "cairn: out of memory printing JSON\n");
     exit(2);

@@ -39,8 +39,17 @@ static const command commands[] = {
      "  Optimize the recipe's ansatz on a noise-free statevector and compare it with\n"
      "  the exact and classical reference energies of the active space.\n"},
     {"build", cmd_build, "lower the ansatz to gates",
-     "cairn build [-o OUT] [--format listing|qasm2|qasm3] FILE\n"
-     "  Lower the recipe's ansatz to a gate circuit; print gate counts.\n"},
+     "cairn build [-o OUT] [--format listing|qasm2|qasm3] [--bind REPORT [--point K]]\n"
+     "            [--tree] [--short] [--no-passes] [--json] [--program] [--save-program F] FILE\n"
+     "  Lower the recipe's ansatz to a gate circuit; print gate counts (cx, single,\n"
+     "  total, depth, per generator).  Without -o, write the recipe's `emit` files;\n"
+     "  `-o -` writes to standard output.  The format follows --format, else the\n"
+     "  extension of OUT (.qasm, .qasm3: OpenQASM 3.0; .qasm2: OpenQASM 2.0; else\n"
+     "  the listing).  --bind binds the final parameters of a `cairn run --json`\n"
+     "  report (point K, default 0); --tree uses balanced cx trees (lower depth);\n"
+     "  --short lowers excitations as short circuits; --no-passes skips the\n"
+     "  cancellation passes; --program reads a rotation program in JSON instead of\n"
+     "  a recipe; --save-program FILE writes the rotation program as JSON.\n"},
     {"integrals", cmd_integrals, "write the active-space Hamiltonian as FCIDUMP",
      "cairn integrals -o OUT.fcidump FILE\n"
      "  Compute the active-space integrals of the recipe's molecule and write them\n"

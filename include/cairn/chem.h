@@ -29,6 +29,14 @@ typedef struct chem_space {
 } chem_space;
 
 void chem_space_free(chem_space *s);
+/* Fold the doubly occupied orbitals `core` (0-based) of `full` into the
+ * constant and keep the orbitals `active`, in the given order; the result has
+ * nalpha/nbeta active electrons.  `out` is the caller's (chem_space_free). */
+void chem_space_select(const chem_space *full, const int *core, int ncore, const int *active, int nact,
+                       int nalpha, int nbeta, chem_space *out);
+/* Energy of the reference determinant of `s` (the Hartree-Fock energy when the
+ * orbitals are the SCF orbitals). */
+double chem_reference_energy(const chem_space *s);
 /* Index into h2. */
 static inline long chem_h2_index(int n, int p, int q, int r, int s) {
   return (((long)p * n + q) * n + r) * n + s;

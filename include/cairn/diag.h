@@ -64,6 +64,9 @@ void diag_note(diag_ctx *d, diag_span where, const char *fmt, ...)
 void diag_help(diag_ctx *d, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
 
 int diag_errors(const diag_ctx *d);
+/* Text of the most recent error (without location), "" if none: lets a caller
+ * that goes on after a failure (a scan point) say what went wrong. */
+const char *diag_last_error(const diag_ctx *d);
 int diag_warnings(const diag_ctx *d);
 /* With werror set, warnings are counted as errors (cairn --werror). */
 void diag_set_werror(diag_ctx *d, int on);

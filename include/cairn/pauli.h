@@ -44,6 +44,9 @@ int pauli_word_commutes(int nw, const uint64_t *x1, const uint64_t *z1, const ui
                         const uint64_t *z2);
 /* Qubits with a letter other than I. */
 int pauli_word_weight(int nw, const uint64_t *x, const uint64_t *z);
+/* Support: the qubits with a letter other than I, increasing, written into
+ * `qubits` (room for the weight); returns how many. */
+int pauli_word_support(int nw, const uint64_t *x, const uint64_t *z, int *qubits);
 /* Number of Y letters. */
 int pauli_word_ycount(int nw, const uint64_t *x, const uint64_t *z);
 int pauli_word_equal(int nw, const uint64_t *x1, const uint64_t *z1, const uint64_t *x2,

@@ -86,6 +86,16 @@ void ans_setup_free(ans_setup *s);
 int ans_reference_bits(const ir_recipe *r, const qubit_encoder *enc, int norb, int nalpha, int nbeta,
                        diag_ctx *d, uint64_t *out);
 
+/* The problem of one pipeline point (pipe.h) without rebuilding anything:
+ * ref_bits is the caller's buffer (pauli_nwords(2 norb) words) for the
+ * reference bits (ans_reference_bits).  The pipeline tapers in the sector of
+ * the Hartree-Fock state, so `reference bits` in another sector is reported
+ * at the reference (then use ans_setup_init, which tapers in the sector of
+ * the bits).  Returns 0 or -1. */
+struct pipe_point;
+int ans_problem_from_point(ans_problem *p, const ir_recipe *r, const struct pipe_point *pp, uint64_t *ref_bits,
+                           diag_ctx *d);
+
 /* The reference state on the ansatz register. */
 typedef struct ans_reference {
   ir_reference_kind kind;
@@ -166,13 +176,54 @@ void ans_plan_free(ans_plan *pl);
  * of the ordered product with mult/trotter, parameters shared. */
 void ans_plan_circuit(const ans_plan *pl, const ir_recipe *r, ans_circuit *c);
 
+/* Type the chosen generators against every symmetry still untyped (plan
+ * building types only what `keep ... exactly` needs; tables want all). */
+void ans_plan_type(ans_plan *pl, const ans_problem *p);
+
 /* Gradient (i/2)<ref|[G, H]|ref> of the pool's generator k at a product state,
- * by closed forms over H's terms (no statevector). */
+ * by closed forms over H's terms (no statevector; builds the term index, so
+ * for many generators use ans_pool_screen). */
 double ans_gen_gradient(const ans_pool *pool, size_t k, const pauli_sum *H, const ans_reference *ref);
+/* The gradients of every generator of the pool at a product state ref: H's
+ * terms grouped by X-mask once (hash), then each word costs its group. */
+void ans_pool_screen(ans_pool *pool, const pauli_sum *H, const ans_reference *ref);
 
 /* Ordering key of a gradient: |g| quantized to 1e-12 Eh, so that gradients
  * equal up to rounding tie exactly and ties fall back to pool order (-1: NAN). */
 long long ans_grad_key(double g);
+
+/* Adaptive growth (`grow to N until tol`, ADAPT-VQE): on the statevector
+ * engine (sim.h), repeatedly append the pool generator with the largest
+ * |gradient| at the current optimized state and re-optimize all parameters
+ * (warm start; the recipe's method, tolerance and iterations), until N
+ * generators or the largest |gradient| is under tol.  `objective` is what is
+ * minimized (the Hamiltonian on the ansatz register, plus any penalties).
+ * Afterwards pl->order holds the chosen generators in program order (a
+ * generator may be chosen again: it gets a new parameter) and
+ * ans_plan_circuit builds the grown program; out->theta are its optimized
+ * parameters.  Returns 0, or -1 with a message in err (the statevector does
+ * not fit, an optimizer failure). */
+typedef struct ans_grow_step {
+  size_t gen;          /* pool index added */
+  double gradient;     /* its gradient when it was chosen */
+  double energy;       /* objective after re-optimizing with it */
+  long evals;          /* objective evaluations of that optimization */
+} ans_grow_step;
+
+typedef struct ans_grow_result {
+  ans_grow_step *step;
+  int nsteps;
+  double energy0;      /* objective of the reference (mean-field angles optimized) */
+  double energy;       /* objective at the end */
+  double *theta;       /* nparams optimized parameters of the grown program */
+  int nparams;
+  int converged;       /* 1: stopped because the largest |gradient| < tol; 0: N reached */
+  double max_gradient; /* largest |gradient| at the final state */
+} ans_grow_result;
+
+int ans_grow(ans_plan *pl, const ir_recipe *r, const pauli_sum *objective, ans_grow_result *out, char *err,
+             size_t errlen);
+void ans_grow_result_free(ans_grow_result *g);
 
 /* Generator table in program order (`cairn show`): text or JSON (DESIGN.md). */
 void ans_table_print(const ans_plan *pl, const ir_recipe *r, const ans_problem *p, const diag_ctx *d,

@@ -69,7 +69,8 @@ typedef struct ans_tally {
   size_t made;                       /* generators it added to the pool */
   size_t tried;                      /* generators it proposed */
   size_t vanished, vanished_taper;   /* zero in the encoding / after tapering */
-  size_t dup;                        /* copies of earlier generators, dropped */
+  size_t dup;                        /* copies involving an explicit generator, dropped */
+  size_t dup_quiet;                  /* copies between rule families, dropped quietly */
   long dup_of;                       /* pool index of the first one copied */
   size_t *z2_drop;                   /* per removed Z2: generators dropped */
   char *z2_text;                     /* text of the first generator dropped by a Z2 */
@@ -117,7 +118,7 @@ void ans_add_reg_word(ans_build *b, const ans_gen_info *info, const uint64_t *x,
 int ans_sig_commutes(const pauli_sum *s, size_t off, size_t len, const pauli_sum *S, double *worst);
 /* Type generator k against symmetry `sym` now (fills gen->sig.sym[sym]);
  * returns the largest |coefficient| of the commutator (0 when it commutes). */
-double ans_type_gen(ans_build *b, size_t k, int sym);
+double ans_type_gen(ans_pool *pool, size_t k, const ans_problem *p, int sym);
 /* Selection and ordering (select.c): fills pl->order; warns at the choose
  * statement when nothing is left. */
 void ans_select(ans_plan *pl, const ir_recipe *r, diag_ctx *d);

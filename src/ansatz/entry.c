@@ -48,6 +48,7 @@ int ans_show(const ir_recipe *r, diag_ctx *d, FILE *out, int json) {
   memset(&pl, 0, sizeof pl);
   if (rc == 0) rc = ans_plan_build(&pl, r, &s.prob, d);
   if (rc == 0) {
+    ans_plan_type(&pl, &s.prob);
     if (json) {
       cJSON *j = ans_table_json(&pl, r, &s.prob, d);
       char *text = json_print(j);

@@ -5,6 +5,7 @@
 #include "cmd/cmd.h"
 #include "cairn/front.h"
 #include "cairn/ir.h"
+#include "cairn/pool.h"
 
 #include <stdio.h>
 #include <string.h>
@@ -36,8 +37,10 @@ int cmd_check(const cmd_env *env, int argc, char **argv) {
     }
     int before = diag_errors(d);
     ir_recipe *r = front_resolve(d, f, NULL);
-    /* The symmetry type check of the generators (a later stage) runs here,
-     * on a resolved recipe, reporting through d. */
+    /* The symmetry type check of the generators and the reference, on a
+     * resolved recipe; it builds the Hamiltonian only when typing needs it
+     * (entanglers, tapering), and never simulates. */
+    if (r && diag_errors(d) == before) ans_check(r, d);
     if (r && diag_errors(d) == before) summary(r);
     else if (status == 0) status = 1;
     ir_recipe_free(r);

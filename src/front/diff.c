@@ -71,9 +71,10 @@ static char *scan_text(const ir_recipe *r) {
                    util_fmt_double(t, r->scan.to), util_fmt_double(s, r->scan.step), *u ? " " : "", u, r->npoints);
 }
 
+/* 12 significant digits: enough to show any difference above the 1e-10 bohr
+ * tolerance for coordinates below 10 bohr, few enough to read. */
 static char *xyz_text(const double *x) {
-  char a[32], b[32], c[32];
-  return xasprintf("(%s, %s, %s) bohr", util_fmt_double(a, x[0]), util_fmt_double(b, x[1]), util_fmt_double(c, x[2]));
+  return xasprintf("(%.12g, %.12g, %.12g) bohr", x[0], x[1], x[2]);
 }
 
 /* Geometry at the scan points both recipes have (matched by value). */

@@ -414,7 +414,7 @@ int front_fmt(diag_ctx *d, int32_t file, util_buf *out) {
     fmt_line *l = add_line(&f, f.comment_line[c], 0, comment_text(&f, c));
     l->is_comment = 1;
   }
-  qsort(f.v, f.n, sizeof *f.v, cmp_line);
+  if (f.n > 1) qsort(f.v, f.n, sizeof *f.v, cmp_line);
   /* comments inside a block are indented with it */
   int depth = 0;
   for (size_t i = 0; i < f.n; i++) {
@@ -428,7 +428,7 @@ int front_fmt(diag_ctx *d, int32_t file, util_buf *out) {
   char *blank = xcalloc(f.n + 1, 1);
   for (size_t i = 1; i < f.n; i++)
     blank[i] = f.v[i].line > f.v[i - 1].line + 1 && !f.v[i - 1].opens && !f.v[i].closes;
-  /* trailing comments of neighbouring lines line up */
+  /* trailing comments of neighbouring lines at one indentation line up */
   size_t *col = xcalloc(f.n + 1, sizeof *col);
   for (size_t i = 0; i < f.n;) {
     if (f.v[i].comment < 0) {
@@ -436,7 +436,7 @@ int front_fmt(diag_ctx *d, int32_t file, util_buf *out) {
       continue;
     }
     size_t j = i, w = 0;
-    while (j < f.n && f.v[j].comment >= 0 && (j == i || !blank[j])) {
+    while (j < f.n && f.v[j].comment >= 0 && (j == i || (!blank[j] && f.v[j].indent == f.v[i].indent))) {
       size_t len = strlen(f.v[j].text) + 2 * (size_t)f.v[j].indent;
       if (len > w) w = len;
       j++;

@@ -76,6 +76,8 @@ static int is_statement_kind(int k) {
   }
 }
 
+static void front_missing_open(front_parser *p, diag_span at);
+
 static int is_block_kind(int k) { return k == ATOMS || k == POOL || k == ORBITALS; }
 
 static int line_of(const front_parser *p, diag_span s) {
@@ -102,8 +104,8 @@ void front_comment(front_parser *p, diag_span s) {
 }
 
 void front_lex_error(front_parser *p, diag_span s, const char *help, const char *fmt, ...) {
-  count_error(p);
   if (!claim_line(p, s)) return;
+  count_error(p);
   va_list ap;
   va_start(ap, fmt);
   diag_vreport(p->d, DIAG_ERROR, s, fmt, ap);
@@ -151,6 +153,7 @@ int recipe_yylex(RECIPE_YYSTYPE *lval, diag_span *lloc, front_parser *p) {
     return t->kind;
   }
   RECIPE_YYSTYPE v;
+  memset(&v, 0, sizeof v);
   diag_span loc;
   int k = recipe_lxlex(&v, &loc, p->scanner);
   *lval = v;
@@ -159,8 +162,8 @@ int recipe_yylex(RECIPE_YYSTYPE *lval, diag_span *lloc, front_parser *p) {
   if (p->in_block && ((p->line_start && is_statement_kind(k)) || k == 0)) {
     diag_span at = {loc.file, loc.start, loc.start};
     if (!p->block_noopen) {
-      count_error(p);
       if (claim_line(p, k == 0 ? p->block_open : loc)) {
+        count_error(p);
         if (k == 0)
           diag_report(p->d, DIAG_ERROR, p->block_open, "this `%s` block is never closed", block_name(p->block_kw));
         else {
@@ -183,8 +186,8 @@ int recipe_yylex(RECIPE_YYSTYPE *lval, diag_span *lloc, front_parser *p) {
     return RBRACE;
   }
   if (k == RBRACE && p->in_block && !p->line_start) {
-    count_error(p);
     if (claim_line(p, loc)) {
+      count_error(p);
       diag_report(p->d, DIAG_ERROR, loc, "`}` must be on a line of its own");
       diag_help(p->d, "a block holds one item per line; move `}` to the next line");
     }
@@ -209,7 +212,8 @@ int recipe_yylex(RECIPE_YYSTYPE *lval, diag_span *lloc, front_parser *p) {
     p->in_block = 0;
     p->block_kw = 0;
   } else if (k == NL && p->block_kw && !p->in_block && !p->line_has_open) {
-    /* the grammar reads a block without `{` (reported by front_missing_open) */
+    /* the grammar reads a block without `{`: say so once */
+    front_missing_open(p, loc);
     p->in_block = 1;
     p->block_noopen = 1;
     p->block_open = p->block_kw_span;
@@ -222,9 +226,9 @@ int recipe_yylex(RECIPE_YYSTYPE *lval, diag_span *lloc, front_parser *p) {
   return k;
 }
 
-void front_missing_open(front_parser *p, diag_span at) {
-  count_error(p);
+static void front_missing_open(front_parser *p, diag_span at) {
   if (!claim_line(p, at)) return;
+  count_error(p);
   const char *what = p->block_kw ? block_name(p->block_kw) : "block";
   diag_report(p->d, DIAG_ERROR, at, "expected `{` after `%s`", what);
   diag_help(p->d, "a block opens with `{` at the end of its first line: `%s {`", what);
@@ -256,8 +260,8 @@ static void describe(front_parser *p, diag_span at, const char *name, util_buf *
 
 void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, int nexpected,
                         const char *const *expected) {
-  count_error(p);
   if (!claim_line(p, at)) return;
+  count_error(p);
   util_buf what = {0};
   describe(p, at, unexpected, &what);
   size_t len;
@@ -268,7 +272,7 @@ void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, i
   if (has(nexpected, expected, "`let`")) {
     if (is_name) {
       diag_report(p->d, DIAG_ERROR, at, "unknown statement `%.*s`", (int)len, text);
-      const char *s = suggest_word(text, len, statement_words, NSTATEMENT_WORDS);
+      const char *s = front_suggest(text, len, statement_words, NSTATEMENT_WORDS);
       if (s) diag_help(p->d, "did you mean `%s`?", s);
       else
         diag_help(p->d, "a statement starts with a keyword: let, vary, atoms, basis, orbitals, encoding, "
@@ -287,6 +291,7 @@ void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, i
   const char *items[90];
   int nitems = 0;
   int value = has(nexpected, expected, "number") && has(nexpected, expected, "sign");
+  int in_block = has(nexpected, expected, "`}`");
   if (value) items[nitems++] = "a value";
   for (int i = 0; i < nexpected && nitems < 88; i++) {
     const char *e = expected[i];
@@ -294,6 +299,7 @@ void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, i
                   !strcmp(e, "function")))
       continue;
     if (!strcmp(e, "error")) continue;
+    if (in_block && !strcmp(e, "end of line")) continue; /* a blank line: not worth saying */
     if (!strcmp(e, "name")) e = "a name";
     else if (!strcmp(e, "number")) e = "a number";
     else if (!strcmp(e, "string")) e = "a string";
@@ -327,7 +333,7 @@ void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, i
         nkw++;
       }
     }
-    const char *s = suggest_word(text, len, kw, nkw);
+    const char *s = front_suggest(text, len, kw, nkw);
     if (s) diag_help(p->d, "did you mean `%s`?", s);
   }
   if (strcmp(unexpected, "sign") == 0 && has(nexpected, expected, "end of line"))
@@ -339,16 +345,42 @@ void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, i
   util_buf_free(&list);
 }
 
+static void parser_init(front_parser *p, diag_ctx *d, int32_t file) {
+  memset(p, 0, sizeof *p);
+  p->d = d;
+  p->file = file;
+  p->text = diag_file_text(d, file, &p->len);
+  p->out = xcalloc(1, sizeof *p->out);
+  p->out->file = file;
+  p->line_start = 1;
+  p->last_error_line = -1;
+}
+
+int front_tokens(diag_ctx *d, int32_t file, front_tok *out, int max) {
+  front_parser p;
+  parser_init(&p, d, file);
+  yyscan_t scanner;
+  recipe_lxlex_init_extra(&p, &scanner);
+  p.scanner = scanner;
+  recipe_lx_scan_bytes(p.text, (int)p.len, scanner);
+  int n = 0;
+  for (;;) {
+    RECIPE_YYSTYPE v;
+    memset(&v, 0, sizeof v);
+    diag_span loc;
+    int k = recipe_yylex(&v, &loc, &p);
+    if (n < max) out[n] = (front_tok){k, loc, v.flag};
+    n++;
+    if (k == 0) break;
+  }
+  recipe_lxlex_destroy(scanner);
+  ast_file_free(p.out);
+  return n;
+}
+
 ast_file *front_parse(diag_ctx *d, int32_t file) {
   front_parser p;
-  memset(&p, 0, sizeof p);
-  p.d = d;
-  p.file = file;
-  p.text = diag_file_text(d, file, &p.len);
-  p.out = xcalloc(1, sizeof *p.out);
-  p.out->file = file;
-  p.line_start = 1;
-  p.last_error_line = -1;
+  parser_init(&p, d, file);
   yyscan_t scanner;
   recipe_lxlex_init_extra(&p, &scanner);
   p.scanner = scanner;

@@ -58,6 +58,11 @@ typedef struct front_parser {
 /* Parse registered file `file`. */
 ast_file *front_parse(diag_ctx *d, int32_t file);
 
+/* All tokens of registered file `file` as the parser would see them (through
+ * the block-keeping wrapper), up to `max`; returns how many there were (which
+ * may exceed max).  The last token is the end of file (kind 0).  For tests. */
+int front_tokens(diag_ctx *d, int32_t file, front_tok *out, int max);
+
 /* Called by the scanner. */
 void front_comment(front_parser *p, diag_span s);
 /* A malformed number (`1.2.3`, `2deg`). */
@@ -69,8 +74,6 @@ void front_lex_error(front_parser *p, diag_span s, const char *help, const char 
  * name and the names of the tokens that were expected. */
 void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, int nexpected,
                         const char *const *expected);
-/* A block statement without `{` (at is the newline where it was expected). */
-void front_missing_open(front_parser *p, diag_span at);
 /* The parser gave up (its stack is exhausted). */
 void front_parse_failure(front_parser *p, diag_span at, const char *msg);
 /* Token kind of a keyword, or 0 (then the word is a name). */

@@ -22,9 +22,13 @@
 #include <stdlib.h>
 #include <string.h>
 
+/* "electron" or "electrons" after a count. */
+static const char *el(long n) { return n == 1 ? "electron" : "electrons"; }
+
 /* Where the orbital count comes from, for messages. */
 static const char *orbital_source(const rs *c) {
-  return c->r->problem == IR_PROBLEM_INTEGRALS ? "the integrals file" : "the basis";
+  if (c->r->problem == IR_PROBLEM_INTEGRALS) return "the integrals file";
+  return c->r->basis_name ? c->r->basis_name : "the basis file";
 }
 
 /* Electrons, multiplicity and orbital count; 0 when they are settled. */
@@ -38,7 +42,8 @@ static int molecule(rs *c, int *nalpha, int *nbeta) {
     return -1;
   }
   if (!atoms && !ints) {
-    diag_report(c->d, DIAG_ERROR, diag_line_span(c->d, c->top, 1), "the recipe names no molecule");
+    if (c->use_failed) return -1; /* it may be in the file that could not be read */
+    diag_report(c->d, DIAG_ERROR, c->header_span, "the recipe names no molecule");
     diag_help(c->d, "give `atoms { ... }` and `basis NAME`, or `integrals \"file.fcidump\"`");
     return -1;
   }
@@ -46,6 +51,7 @@ static int molecule(rs *c, int *nalpha, int *nbeta) {
   if (atoms) {
     r->problem = IR_PROBLEM_ATOMS;
     if (!basis) {
+      if (c->use_failed) return -1;
       diag_report(c->d, DIAG_ERROR, atoms->kw, "the atoms need a basis set");
       diag_help(c->d, "add a line such as `basis sto-3g`, or `basis file \"mine.gbs\"`");
       return -1;
@@ -57,12 +63,20 @@ static int molecule(rs *c, int *nalpha, int *nbeta) {
     if (nelec <= 0) {
       diag_report(c->d, DIAG_ERROR, charge->e[0]->span, "a charge of %d leaves %s electrons", r->charge,
                   nelec == 0 ? "no" : "a negative number of");
-      diag_note(c->d, atoms->span, "the atoms have %d electrons", zsum);
+      diag_note(c->d, atoms->span, "the atoms have %d %s", zsum, el(zsum));
       return -1;
     }
   } else {
     r->problem = IR_PROBLEM_INTEGRALS;
+    /* one point, no atoms: later stages read point 0 */
+    r->npoints = 1;
+    r->points = xcalloc(1, sizeof *r->points);
     int bad = 0;
+    if (r->scan.active) {
+      diag_report(c->d, DIAG_ERROR, r->scan.span, "a scan varies atom coordinates, and an integrals file has none");
+      diag_note(c->d, ints->span, "the molecule comes from this file");
+      bad = 1;
+    }
     if (basis) {
       diag_report(c->d, DIAG_ERROR, basis->kw, "`basis` is for atoms; an integrals file has its own orbitals");
       diag_note(c->d, ints->span, "the integrals are read from here");
@@ -91,18 +105,18 @@ static int molecule(rs *c, int *nalpha, int *nbeta) {
   int unpaired = m - 1;
   diag_span mspan = mult ? mult->e[0]->span : charge ? charge->span : atoms ? atoms->kw : ints->span;
   if (unpaired > nelec) {
-    diag_report(c->d, DIAG_ERROR, mspan, "multiplicity %d needs %d unpaired electrons, but there are only %d electrons",
-                m, unpaired, nelec);
+    diag_report(c->d, DIAG_ERROR, mspan, "multiplicity %d needs %d unpaired electrons, but there %s only %d %s",
+                m, unpaired, nelec == 1 ? "is" : "are", nelec, el(nelec));
     return -1;
   }
   if ((nelec - unpaired) % 2 != 0) {
     if (mult) {
-      diag_report(c->d, DIAG_ERROR, mspan, "multiplicity %d does not fit %d electrons", m, nelec);
+      diag_report(c->d, DIAG_ERROR, mspan, "multiplicity %d does not fit %d %s", m, nelec, el(nelec));
       diag_note(c->d, DIAG_NOWHERE, "%s electron count needs %s multiplicity (%s)", nelec % 2 ? "an odd" : "an even",
                 nelec % 2 ? "an even" : "an odd", nelec % 2 ? "2, 4, ..." : "1, 3, ...");
     } else {
-      diag_report(c->d, DIAG_ERROR, mspan, "the molecule has %d electrons, an odd number, so it cannot be a singlet",
-                  nelec);
+      diag_report(c->d, DIAG_ERROR, mspan, "the molecule has %d %s, an odd number, so it cannot be a singlet",
+                  nelec, el(nelec));
       diag_help(c->d, "give its spin: `multiplicity 2` for one unpaired electron");
     }
     return -1;
@@ -136,12 +150,12 @@ static int orbital_list(rs *c, const ast_ranges *l, int norb, char *mark, const 
   for (int i = 0; i < l->n; i++) {
     const ast_range *g = &l->v[i];
     long lo, hi;
-    if (rs_index(c, g->lo, g->bad, &lo)) {
+    if (front_index(c, g->lo, g->bad, &lo)) {
       ok = 0;
       continue;
     }
     hi = lo;
-    if (g->hi.file >= 0 && rs_index(c, g->hi, g->bad, &hi)) {
+    if (g->hi.file >= 0 && front_index(c, g->hi, g->bad, &hi)) {
       ok = 0;
       continue;
     }
@@ -170,6 +184,18 @@ static int orbital_list(rs *c, const ast_ranges *l, int norb, char *mark, const 
   return ok ? 0 : -1;
 }
 
+/* The span of the list entry that holds orbital p (1-based). */
+static diag_span list_span(rs *c, const ast_ranges *l, long p) {
+  for (int i = 0; i < l->n; i++) {
+    long lo, hi;
+    if (l->v[i].bad || front_index(c, l->v[i].lo, 0, &lo)) continue;
+    hi = lo;
+    if (l->v[i].hi.file >= 0 && front_index(c, l->v[i].hi, 0, &hi)) continue;
+    if (lo <= p && p <= hi) return l->v[i].hi.file >= 0 ? ast_join(l->v[i].lo, l->v[i].hi) : l->v[i].lo;
+  }
+  return l->n ? l->v[0].lo : DIAG_NOWHERE;
+}
+
 static void take_list(const char *mark, int norb, int **out, int *n) {
   *n = 0;
   for (int p = 0; p < norb; p++) *n += mark[p] != 0;
@@ -179,7 +205,7 @@ static void take_list(const char *mark, int norb, int **out, int *n) {
     if (mark[p]) (*out)[k++] = p;
 }
 
-void rs_space(rs *c) {
+void front_space(rs *c) {
   ir_recipe *r = c->r;
   ir_orbitals *o = &r->orbitals;
   int nalpha, nbeta;
@@ -226,8 +252,9 @@ void rs_space(rs *c) {
     if (orbital_list(c, &freeze->list, norb, frozen, "frozen")) ok = 0;
     for (int p = 0; p < norb && ok; p++)
       if (frozen[p] && p >= nbeta) {
-        diag_report(c->d, DIAG_ERROR, freeze->span, "orbital %d is not doubly occupied, so it cannot be frozen", p + 1);
-        if (nbeta > 0) diag_note(c->d, DIAG_NOWHERE, "the doubly occupied orbitals are 1..%d", nbeta);
+        diag_report(c->d, DIAG_ERROR, list_span(c, &freeze->list, p + 1), "orbital %d is not doubly occupied, so it cannot be frozen", p + 1);
+        if (nbeta > 1) diag_note(c->d, DIAG_NOWHERE, "the doubly occupied orbitals are 1..%d", nbeta);
+        else if (nbeta == 1) diag_note(c->d, DIAG_NOWHERE, "only orbital 1 is doubly occupied");
         else diag_note(c->d, DIAG_NOWHERE, "no orbital is doubly occupied");
         ok = 0;
       }
@@ -241,17 +268,17 @@ void rs_space(rs *c) {
     o->active_kind = IR_ACTIVE_COUNT;
     o->active_span = active->span;
     long ne, no;
-    int a = rs_eval_int(c, active->e[0], "the number of active electrons", 1, 100000, &ne);
-    int b = rs_eval_int(c, active->e[1], "the number of active orbitals", 1, 100000, &no);
+    int a = front_eval_int(c, active->e[0], "the number of active electrons", 1, 100000, &ne);
+    int b = front_eval_int(c, active->e[1], "the number of active orbitals", 1, 100000, &no);
     int rem = nelec - 2 * nfrozen;
     if (a || b) ok = 0;
     else if (ne > rem) {
-      diag_report(c->d, DIAG_ERROR, active->e[0]->span, "the active space asks for %ld electrons, but only %d remain%s", ne,
-                  rem, nfrozen ? " after freezing" : "");
+      diag_report(c->d, DIAG_ERROR, active->e[0]->span, "the active space asks for %ld %s, but only %d remain%s", ne,
+                  el(ne), rem, nfrozen ? " after freezing" : "");
       ok = 0;
     } else if ((rem - ne) % 2) {
       diag_report(c->d, DIAG_ERROR, active->e[0]->span,
-                  "%ld active electrons leave %ld outside the active space, an odd number", ne, rem - ne);
+                  "%ld active %s leave %ld outside the active space, an odd number", ne, el(ne), rem - ne);
       diag_note(c->d, DIAG_NOWHERE, "electrons outside the active space fill whole orbitals, two at a time");
       ok = 0;
     } else if (ne < unpaired) {
@@ -273,7 +300,7 @@ void rs_space(rs *c) {
         diag_report(c->d, DIAG_ERROR, active->span,
                     "the active space does not fit: %d core and %ld active orbitals need %d, but %s gives %d", nfrozen + ninact,
                     no, need, orbital_source(c), norb);
-        if (nfrozen) diag_note(c->d, o->freeze_span, "%d orbitals are frozen here", nfrozen);
+        if (nfrozen) diag_note(c->d, o->freeze_span, "%d orbital%s frozen here", nfrozen, nfrozen == 1 ? " is" : "s are");
         ok = 0;
       } else {
         for (int k = 0; k < no; p++)
@@ -286,7 +313,7 @@ void rs_space(rs *c) {
     if (orbital_list(c, &active->list, norb, act, "listed")) ok = 0;
     for (int p = 0; p < norb && ok; p++) {
       if (act[p] && frozen[p]) {
-        diag_report(c->d, DIAG_ERROR, active->span, "orbital %d is frozen, so it cannot be active", p + 1);
+        diag_report(c->d, DIAG_ERROR, list_span(c, &active->list, p + 1), "orbital %d is frozen, so it cannot be active", p + 1);
         diag_note(c->d, o->freeze_span, "frozen here");
         ok = 0;
       } else if (!act[p] && !frozen[p] && p < nalpha) {

@@ -129,6 +129,26 @@ static void set_range(uint64_t *m, int a, int b) {
   }
 }
 
+/* The active space is the user's choice, so running out of memory is refused
+ * with a message that says what to change (util.h), not an allocation abort. */
+static void refuse(int norb, size_t terms, uint64_t need, uint64_t avail) {
+  fprintf(stderr,
+          "cairn: the qubit Hamiltonian of %d orbitals (%d qubits) has more than %zu terms and needs "
+          "%.1f GiB more memory than is available (%.1f GiB); choose a smaller active space\n",
+          norb, 2 * norb, terms, (double)need / 1073741824.0, (double)avail / 1073741824.0);
+  exit(2);
+}
+
+/* Room for one more term: double the sum's arrays, checking memory first. */
+static void grow_checked(pauli_sum *out, int norb) {
+  if (out->len < out->cap) return;
+  size_t cap = out->cap ? 2 * out->cap : 1024;
+  uint64_t per = 2 * (uint64_t)out->nw * sizeof(uint64_t) + sizeof(double complex);
+  uint64_t need = (uint64_t)(cap - out->cap) * per, avail = util_mem_available();
+  if (avail && need > avail) refuse(norb, out->len, need, avail);
+  pauli_sum_reserve(out, cap);
+}
+
 /* Scratch for one mode set: coefficients by slot and the slots touched. */
 typedef struct ham_ctx {
   const chem_space *s;
@@ -185,6 +205,7 @@ static void fold_set(ham_ctx *h, const toy_class *tc, const int *D) {
     }
     for (int t = 0; t + 1 < d; t++)
       if ((ip >> t) & 1) set_range(h->z, D[t] + 1, D[t + 1]);
+    grow_checked(h->out, cs->norb);
     pauli_sum_add(h->out, h->x, h->z, c);
   }
   h->ntouched = 0;
@@ -198,11 +219,12 @@ void qubit_hamiltonian(const chem_space *s, const qubit_encoder *enc, pauli_sum 
   }
   pauli_sum_free(out);
   pauli_sum_init(out, nq);
-  /* terms before merging: about 8 per spin-allowed set of four modes */
+  /* terms before merging: at most 8 per spin-allowed set of four modes
+   * (fewer when integrals vanish by symmetry); start there, capped, and grow */
   double no = s->norb;
   double est = 8.0 * (2.0 * no * (no - 1) * (no - 2) * (no - 3) / 24.0 + (no * (no - 1) / 2) * (no * (no - 1) / 2)) +
                4.0 * (double)nq * nq * nq + 64;
-  pauli_sum_reserve(out, (size_t)est);
+  pauli_sum_reserve(out, est < 4e6 ? (size_t)est : (size_t)4000000);
   pauli_sum_add_identity(out, s->e_constant);
 
   toy_class tc[5];
@@ -239,6 +261,9 @@ void qubit_hamiltonian(const chem_space *s, const qubit_encoder *enc, pauli_sum 
   free(h.z);
   for (int d = 1; d <= 4; d++) toy_class_free(&tc[d]);
 
+  /* the sort needs one record per term beside the arrays (pauli.c) */
+  uint64_t rec = 8 * (uint64_t)((16 + 2 * nq + 63) / 64 + 2), avail = util_mem_available();
+  if (avail && (uint64_t)out->len * rec > avail) refuse(s->norb, out->len, (uint64_t)out->len * rec, avail);
   if (enc->kind != IR_ENC_JORDAN_WIGNER)
     for (size_t t = 0; t < out->len; t++) {
       int k = qenc_map_word(enc, pauli_sum_x(out, t), pauli_sum_z(out, t));

@@ -50,6 +50,13 @@ int pauli_word_weight(int nw, const uint64_t *x, const uint64_t *z) {
   return w;
 }
 
+int pauli_word_support(int nw, const uint64_t *x, const uint64_t *z, int *qubits) {
+  int k = 0;
+  for (int i = 0; i < nw; i++)
+    for (uint64_t m = x[i] | z[i]; m; m &= m - 1) qubits[k++] = 64 * i + __builtin_ctzll(m);
+  return k;
+}
+
 int pauli_word_ycount(int nw, const uint64_t *x, const uint64_t *z) {
   int w = 0;
   for (int i = 0; i < nw; i++) w += popc(x[i] & z[i]);

@@ -161,6 +161,7 @@ int main(int argc, char **argv) {
   int rc = ans_setup_init(&s, &r, &cs, d);
   if (rc == 0) rc = ans_plan_build(&pl, &r, &s.prob, d);
   if (rc == 0) {
+    ans_plan_type(&pl, &s.prob);
     cJSON *o = ans_table_json(&pl, &r, &s.prob, d);
     cJSON_AddNumberToObject(o, "nalpha", cs.nalpha);
     cJSON_AddNumberToObject(o, "nbeta", cs.nbeta);

@@ -6,7 +6,7 @@
 # INVENTED ansatz values, see make_inputs.py there).  Outputs compared: the
 # terminal report (table and per-point blocks), JSON without timings, CSV and
 # SVG.  To accept new output after a deliberate change:
-#     CAIRN_REGEN=1 make check TESTS=tests/ref/report_golden.sh
+#     CAIRN_GOLDEN_UPDATE=1 make check TESTS=tests/ref/report_golden.sh
 set -eu
 src=${CAIRN_SRCDIR:-.}
 build=${CAIRN_BUILDDIR:-.}
@@ -26,7 +26,7 @@ for name in scan single; do
       echo "FAIL: $out differs between two runs (not deterministic)"
       fail=1
     fi
-    if [ "${CAIRN_REGEN:-0}" = 1 ]; then
+    if [ "${CAIRN_GOLDEN_UPDATE:-0}" = 1 ]; then
       cp "$tmp/a/$out" "$golden/$out"
       echo "regenerated $golden/$out"
     elif ! cmp -s "$tmp/a/$out" "$golden/$out"; then

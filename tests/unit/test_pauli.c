@@ -9,6 +9,7 @@
 #include <string.h>
 #include <cmocka.h>
 
+#include "cairn/json.h"
 #include "cairn/pauli.h"
 #include "cairn/util.h"
 
@@ -85,6 +86,9 @@ static void test_wide_words(void **state) {
   assert_int_equal(k, 0); /* (-i)(i) = 1 */
   assert_int_equal(pauli_word_weight(nw, x1, z1), 4);
   assert_int_equal(pauli_word_ycount(nw, x1, z1), 1);
+  int sup[4];
+  assert_int_equal(pauli_word_support(nw, x1, z1, sup), 4);
+  assert_true(sup[0] == 0 && sup[1] == 63 && sup[2] == 64 && sup[3] == 129);
 }
 
 static void test_parse_errors(void **state) {
@@ -236,12 +240,53 @@ static void test_parse_messages(void **state) {
   free(t);
 }
 
+
+/* A Pauli sum survives JSON text exactly: every coefficient reads back to the
+ * same double (0.7794640752287191 is one cJSON alone would print short). */
+static void test_json_round_trip(void **state) {
+  (void)state;
+  pauli_sum s, back;
+  pauli_sum_init(&s, 70);
+  util_rng r;
+  util_rng_seed(&r, 5);
+  pauli_sum_add_identity(&s, -46.42853115310073);
+  pauli_sum_add_text(&s, "Z0 Z69", 0.7794640752287191);
+  for (int k = 0; k < 200; k++) {
+    char w[32];
+    snprintf(w, sizeof w, "X%d Y%d", k % 35, 35 + k % 35);
+    double re = (util_rng_uniform(&r) - 0.5) * 1e-3 * (double)(k + 1);
+    double complex c = k % 3 ? re : re + I * util_rng_uniform(&r);
+    pauli_sum_add_text(&s, w, c);
+  }
+  pauli_sum_canonicalize(&s, 0.0);
+  cJSON *j = json_pauli_sum(&s);
+  char *text = json_print(j);
+  assert_non_null(strstr(text, "70")); /* integers as integers, not 7e1 */
+  assert_null(strstr(text, "7e1"));
+  cJSON *parsed = cJSON_Parse(text);
+  assert_non_null(parsed);
+  char err[160];
+  assert_int_equal(json_read_pauli_sum(parsed, &back, err, sizeof err), 0);
+  pauli_sum_canonicalize(&back, 0.0);
+  assert_int_equal(back.len, s.len);
+  for (size_t t = 0; t < s.len; t++) {
+    assert_true(pauli_word_equal(s.nw, pauli_sum_x(&s, t), pauli_sum_z(&s, t), pauli_sum_x(&back, t),
+                                 pauli_sum_z(&back, t)));
+    assert_true(s.c[t] == back.c[t]);
+  }
+  free(text);
+  cJSON_Delete(j);
+  cJSON_Delete(parsed);
+  pauli_sum_free(&s);
+  pauli_sum_free(&back);
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {
       cmocka_unit_test(test_single_qubit_table), cmocka_unit_test(test_enumerate_words),
       cmocka_unit_test(test_wide_words),         cmocka_unit_test(test_parse_errors),
       cmocka_unit_test(test_sums),               cmocka_unit_test(test_canonical_order),
-      cmocka_unit_test(test_parse_messages),
+      cmocka_unit_test(test_parse_messages),     cmocka_unit_test(test_json_round_trip),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }
