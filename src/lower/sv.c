@@ -288,26 +288,32 @@ static double complex pairs_pass(pair_op op, int fim, const kparams *k, sv_v2 *r
   return r;
 }
 
+/* Per-call tables of a diagonal pass, for the two block parities: sigma and
+ * sigma S as lane pairs (S = (s, -s): the sine part of c - i s sigma). */
+typedef struct dtab {
+  sv_v2 sg[2][BLK], ss[2][BLK];
+} dtab;
+
 /* Blocks [q0, q1) of a diagonal pass (inlined per operation). */
-static inline __attribute__((always_inline)) void diag_chunk(pair_op op, sv_v2 C, sv_v2 S, sv_v2 *restrict a,
+static inline __attribute__((always_inline)) void diag_chunk(pair_op op, sv_v2 C, const dtab *t, sv_v2 *restrict a,
                                                              sv_v2 *restrict b, uint64_t q0, uint64_t q1, uint64_t bl,
-                                                             uint64_t z, const double *row, sv_v2 *acc) {
+                                                             uint64_t z, sv_v2 *acc) {
   int inner = op == OP_INNER || op == OP_INNER_ROTATE;
   for (uint64_t q = q0; q < q1; q++) {
     uint64_t base = q * bl;
-    double sb = sv_parity(base & z) ? -1.0 : 1.0;
+    int s = (int)sv_parity(base & z);
+    sv_v2 *ab = a ? a + base : NULL, *bb = b + base;
+    const sv_v2 *sg = t->sg[s], *ss = t->ss[s];
     for (unsigned l = 0; l < bl; l++) {
-      uint64_t i = base + l;
-      double sg = sb * row[l];
-      sv_v2 bi = b[i];
+      sv_v2 bi = bb[l];
       if (inner) {
-        sv_v2 ai = a[i], sa = sg * ai;
+        sv_v2 ai = ab[l], sa = sg[l] * ai;
         acc[0] += sa * bi;
         acc[1] += sa * sv_swap(bi);
-        if (op == OP_INNER_ROTATE) a[i] = C * ai + sg * (S * sv_swap(ai));
+        if (op == OP_INNER_ROTATE) ab[l] = C * ai + ss[l] * sv_swap(ai);
       }
-      if (op == OP_ROTATE || op == OP_INNER_ROTATE) b[i] = C * bi + sg * (S * sv_swap(bi));
-      else if (op == OP_WORD) b[i] = sg * bi;
+      if (op == OP_ROTATE || op == OP_INNER_ROTATE) bb[l] = C * bi + ss[l] * sv_swap(bi);
+      else if (op == OP_WORD) bb[l] = sg[l] * bi;
     }
   }
 }
@@ -317,9 +323,16 @@ static double complex diag_pass(pair_op op, double c, double s, sv_v2 *restrict 
                                 uint64_t z) {
   double row[BLK];
   sign_row(z & (BLK - 1), row);
+  dtab t;
+  for (int k = 0; k < 2; k++)
+    for (unsigned l = 0; l < BLK; l++) {
+      double sg = (k ? -1.0 : 1.0) * row[l];
+      t.sg[k][l] = (sv_v2){sg, sg};
+      t.ss[k][l] = (sv_v2){sg * s, -sg * s}; /* (c - i s)(x + iy) = (c x + s y, c y - s x) */
+    }
   uint64_t bl = dim < BLK ? dim : BLK, nblk = dim / bl, cb = SV_CHUNK / bl, nch = (nblk + cb - 1) / cb;
   int inner = op == OP_INNER || op == OP_INNER_ROTATE;
-  const sv_v2 C = {c, c}, S = {s, -s}; /* (c - i s)(x + iy) = (c x + s y, c y - s x) */
+  const sv_v2 C = {c, c};
   parts ps;
   double *part = parts_get(&ps, inner ? nch : 1);
 #pragma omp parallel for schedule(static) if (dim >= 2 * SV_PAR_MIN)
@@ -327,10 +340,10 @@ static double complex diag_pass(pair_op op, double c, double s, sv_v2 *restrict 
     sv_v2 acc[2] = {{0, 0}, {0, 0}};
     uint64_t q0 = ch * cb, q1 = (ch + 1) * cb < nblk ? (ch + 1) * cb : nblk;
     switch (op) {
-    case OP_ROTATE: diag_chunk(OP_ROTATE, C, S, a, b, q0, q1, bl, z, row, acc); break;
-    case OP_WORD: diag_chunk(OP_WORD, C, S, a, b, q0, q1, bl, z, row, acc); break;
-    case OP_INNER: diag_chunk(OP_INNER, C, S, a, b, q0, q1, bl, z, row, acc); break;
-    case OP_INNER_ROTATE: diag_chunk(OP_INNER_ROTATE, C, S, a, b, q0, q1, bl, z, row, acc); break;
+    case OP_ROTATE: diag_chunk(OP_ROTATE, C, &t, a, b, q0, q1, bl, z, acc); break;
+    case OP_WORD: diag_chunk(OP_WORD, C, &t, a, b, q0, q1, bl, z, acc); break;
+    case OP_INNER: diag_chunk(OP_INNER, C, &t, a, b, q0, q1, bl, z, acc); break;
+    case OP_INNER_ROTATE: diag_chunk(OP_INNER_ROTATE, C, &t, a, b, q0, q1, bl, z, acc); break;
     }
     if (inner) {
       part[2 * ch] = acc[0][0] + acc[0][1];
