@@ -2,20 +2,11 @@
 #include "config.h"
 
 #include "cairn/pipe.h"
+#include "cairn/pool.h"
 #include "cairn/util.h"
 
 #include <stdlib.h>
 #include <string.h>
-
-/* Hartree-Fock occupations (interleaved spin orbitals) as encoded bits. */
-static void hf_bits(const pipe_point *p, uint64_t *out) {
-  int nmodes = 2 * p->space.norb;
-  uint64_t *occ = xcalloc((size_t)pauli_nwords(nmodes), sizeof *occ);
-  for (int i = 0; i < p->space.nalpha; i++) pauli_set(occ, 2 * i, 1);
-  for (int i = 0; i < p->space.nbeta; i++) pauli_set(occ, 2 * i + 1, 1);
-  qubit_encoder_bits(p->enc, occ, out);
-  free(occ);
-}
 
 int pipe_point_build(const ir_recipe *r, int point, diag_ctx *d, pipe_point *out) {
   memset(out, 0, sizeof *out);
@@ -26,8 +17,13 @@ int pipe_point_build(const ir_recipe *r, int point, diag_ctx *d, pipe_point *out
   pauli_sum_init(&out->ham_full, nmodes);
   qubit_hamiltonian(&out->space, out->enc, &out->ham_full);
   int nw = pauli_nwords(nmodes);
+  /* The reference basis state (the Hartree-Fock determinant, or the recipe's
+   * `bits`): tapering keeps its symmetry sector. */
   out->ref_full = xcalloc((size_t)nw, sizeof(uint64_t));
-  hf_bits(out, out->ref_full);
+  if (ans_reference_bits(r, out->enc, out->space.norb, out->space.nalpha, out->space.nbeta, d, out->ref_full) != 0) {
+    pipe_point_free(out);
+    return -1;
+  }
 
   pauli_sum full[IR_SYM_COUNT];
   for (int s = 0; s < IR_SYM_COUNT; s++) pauli_sum_init(&full[s], nmodes);

@@ -18,6 +18,11 @@
 
 #include <complex.h>
 #include <stddef.h>
+
+/* C11's CMPLX where the C library leaves it to the compiler (clang). */
+#ifndef CMPLX
+#define CMPLX(x, y) __builtin_complex((double)(x), (double)(y))
+#endif
 #include <stdint.h>
 
 static inline int pauli_nwords(int n) { return n <= 0 ? 1 : (n + 63) / 64; }

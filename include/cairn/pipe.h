@@ -22,7 +22,7 @@ typedef struct pipe_point {
   qubit_taper taper;      /* nsym = 0 without `taper` */
   pauli_sum ham;          /* the Hamiltonian the ansatz acts on (tapered) */
   int nqubits;            /* qubits of the ansatz register */
-  uint64_t *ref_full;     /* Hartree-Fock basis state, encoded, before tapering */
+  uint64_t *ref_full;     /* reference basis state (Hartree-Fock or `bits`), encoded, before tapering */
   uint64_t *ref;          /* the same on the ansatz register */
   pauli_sum sym[IR_SYM_COUNT]; /* N, S_z, S^2 on the ansatz register */
 } pipe_point;
