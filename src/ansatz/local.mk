@@ -9,7 +9,7 @@ check_PROGRAMS += tests/unit/test_ans
 UNIT_TESTS += tests/unit/test_ans
 tests_unit_test_ans_SOURCES = tests/unit/test_ans.c
 tests_unit_test_ans_CFLAGS = $(UNIT_CFLAGS)
-tests_unit_test_ans_LDADD = $(UNIT_LDADD)
+tests_unit_test_ans_LDADD = $(TESTSUPPORT_LIBS) $(UNIT_LDADD)
 
 ## reference checks: a C driver over FCIDUMP files, checked by numpy and psi4
 check_PROGRAMS += tests/ref/ans_driver

@@ -24,7 +24,7 @@ EXTRA_DIST += tests/ref/sim_expm.py tests/ref/sim_optimize.py tests/ref/sim_h2_u
 ## benchmark (make bench): rotation bandwidth and energy + gradient vs numpy/scipy
 noinst_PROGRAMS += tests/bench/sim_bench
 tests_bench_sim_bench_SOURCES = tests/bench/sim_bench.c
-tests_bench_sim_bench_LDADD = $(CAIRN_LIBS)
+tests_bench_sim_bench_LDADD = $(TESTSUPPORT_LIBS) $(CAIRN_LIBS)
 EXTRA_DIST += tests/bench/sim_bench.py
 BENCH_TARGETS += bench-sim
 bench-sim: tests/bench/sim_bench$(EXEEXT)

@@ -12,7 +12,7 @@ check_PROGRAMS += tests/unit/test_qubit
 UNIT_TESTS += tests/unit/test_qubit
 tests_unit_test_qubit_SOURCES = tests/unit/test_qubit.c
 tests_unit_test_qubit_CFLAGS = $(UNIT_CFLAGS)
-tests_unit_test_qubit_LDADD = $(UNIT_LDADD)
+tests_unit_test_qubit_LDADD = $(TESTSUPPORT_LIBS) $(UNIT_LDADD)
 
 ## reference checks (psi4, numpy, scipy live): a C driver prints our Pauli sums as JSON
 check_PROGRAMS += tests/ref/qubit_driver
@@ -24,7 +24,7 @@ EXTRA_DIST += tests/ref/qubit_common.py tests/ref/qubit_spectrum.py tests/ref/qu
 ## benchmark (make bench): Hamiltonian build at 40 and 100 qubits
 noinst_PROGRAMS += tests/bench/qubit_bench
 tests_bench_qubit_bench_SOURCES = tests/bench/qubit_bench.c
-tests_bench_qubit_bench_LDADD = $(CAIRN_LIBS)
+tests_bench_qubit_bench_LDADD = $(TESTSUPPORT_LIBS) $(CAIRN_LIBS)
 EXTRA_DIST += tests/bench/qubit_bench.sh
 BENCH_TARGETS += bench-qubit
 bench-qubit: tests/bench/qubit_bench$(EXEEXT)

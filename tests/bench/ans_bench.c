@@ -22,6 +22,7 @@
 #include "cairn/fcidump.h"
 #include "cairn/pool.h"
 #include "cairn/util.h"
+#include "../support/testdata.h"
 
 #include <math.h>
 #include <stdio.h>
@@ -41,30 +42,13 @@ typedef struct result {
   double ratio, maxdiff; /* baseline only */
 } result;
 
+/* Random integrals with the 8-fold symmetry (invented data;
+ * tests/support/testdata.c): the diagonal of h1 rises from -2 to +2. */
 static void random_space(chem_space *s, int norb, int nocc, uint64_t seed) {
-  memset(s, 0, sizeof *s);
-  s->norb = norb;
-  s->nalpha = s->nbeta = nocc;
-  s->h1 = xcalloc((size_t)norb * norb, sizeof(double));
-  s->h2 = xcalloc((size_t)norb * norb * norb * norb, sizeof(double));
+  const testdata_scales k = {.h1 = 0.3, .diag0 = -2.0, .diag_rise = 4.0, .diag_over = norb, .h2 = 0.05};
   util_rng r;
   util_rng_seed(&r, seed);
-  for (int p = 0; p < norb; p++)
-    for (int q = 0; q <= p; q++) {
-      double v = 0.3 * (util_rng_uniform(&r) - 0.5);
-      if (p == q) v += -2.0 + 4.0 * p / norb;
-      s->h1[p * norb + q] = s->h1[q * norb + p] = v;
-    }
-  for (int p = 0; p < norb; p++)
-    for (int q = 0; q <= p; q++)
-      for (int a = 0; a < norb; a++)
-        for (int b = 0; b <= a; b++) {
-          if (p * (p + 1) / 2 + q < a * (a + 1) / 2 + b) continue;
-          double v = 0.05 * (util_rng_uniform(&r) - 0.5);
-          int idx[8][4] = {{p, q, a, b}, {q, p, a, b}, {p, q, b, a}, {q, p, b, a},
-                           {a, b, p, q}, {b, a, p, q}, {a, b, q, p}, {b, a, q, p}};
-          for (int k = 0; k < 8; k++) s->h2[chem_h2_index(norb, idx[k][0], idx[k][1], idx[k][2], idx[k][3])] = v;
-        }
+  testdata_space(s, norb, nocc, nocc, &k, &r);
 }
 
 static int cmp_double(const void *a, const void *b) {

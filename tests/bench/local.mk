@@ -4,7 +4,7 @@ BENCH_TARGETS += bench-gates
 ## benchmark (make bench): pool screening at 40 and 100 qubits
 noinst_PROGRAMS += tests/bench/ans_bench
 tests_bench_ans_bench_SOURCES = tests/bench/ans_bench.c
-tests_bench_ans_bench_LDADD = $(CAIRN_LIBS)
+tests_bench_ans_bench_LDADD = $(TESTSUPPORT_LIBS) $(CAIRN_LIBS)
 EXTRA_DIST += tests/bench/ans_bench.sh
 BENCH_TARGETS += bench-ans
 bench-ans: tests/bench/ans_bench$(EXEEXT)

@@ -19,6 +19,7 @@
 #include "cairn/fcidump.h"
 #include "cairn/qubit.h"
 #include "cairn/util.h"
+#include "../support/testdata.h"
 
 #include <stdio.h>
 #include <stdlib.h>
@@ -34,26 +35,13 @@ typedef struct result {
   double peak_mb;
 } result;
 
+/* Random integrals with the 8-fold symmetry (invented data;
+ * tests/support/testdata.c), norb / 4 electrons of each spin. */
 static void random_space(chem_space *s, int norb, uint64_t seed) {
-  memset(s, 0, sizeof *s);
-  s->norb = norb;
-  s->nalpha = s->nbeta = norb / 4;
-  s->h1 = xcalloc((size_t)norb * norb, sizeof(double));
-  s->h2 = xcalloc((size_t)norb * norb * norb * norb, sizeof(double));
+  const testdata_scales k = {.h1 = 1.0, .h2 = 0.2};
   util_rng r;
   util_rng_seed(&r, seed);
-  for (int p = 0; p < norb; p++)
-    for (int q = 0; q <= p; q++) s->h1[p * norb + q] = s->h1[q * norb + p] = util_rng_uniform(&r) - 0.5;
-  for (int p = 0; p < norb; p++)
-    for (int q = 0; q <= p; q++)
-      for (int a = 0; a < norb; a++)
-        for (int b = 0; b <= a; b++) {
-          if (p * (p + 1) / 2 + q < a * (a + 1) / 2 + b) continue;
-          double v = 0.2 * (util_rng_uniform(&r) - 0.5);
-          int idx[8][4] = {{p, q, a, b}, {q, p, a, b}, {p, q, b, a}, {q, p, b, a},
-                           {a, b, p, q}, {b, a, p, q}, {a, b, q, p}, {b, a, q, p}};
-          for (int k = 0; k < 8; k++) s->h2[chem_h2_index(norb, idx[k][0], idx[k][1], idx[k][2], idx[k][3])] = v;
-        }
+  testdata_space(s, norb, norb / 4, norb / 4, &k, &r);
 }
 
 static int cmp_double(const void *a, const void *b) {

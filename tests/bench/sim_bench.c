@@ -21,6 +21,7 @@
 #include "cairn/qubit.h"
 #include "cairn/sim.h"
 #include "cairn/util.h"
+#include "../support/testdata.h"
 
 #include <complex.h>
 #include <stdio.h>
@@ -177,29 +178,6 @@ static int bench_evalgrad(const char *path, int reps) {
   return 0;
 }
 
-/* Random real integrals with the symmetries of real orbitals (h1 symmetric,
- * (pq|rs) 8-fold symmetric), scaled like a small molecule's. */
-static void random_space(int norb, int nelec, util_rng *r, chem_space *s) {
-  memset(s, 0, sizeof *s);
-  s->norb = norb;
-  s->nalpha = (nelec + 1) / 2;
-  s->nbeta = nelec / 2;
-  s->h1 = xcalloc((size_t)norb * norb, sizeof *s->h1);
-  s->h2 = xcalloc((size_t)norb * norb * norb * norb, sizeof *s->h2);
-  for (int p = 0; p < norb; p++)
-    for (int q = 0; q <= p; q++) s->h1[p * norb + q] = s->h1[q * norb + p] = util_rng_uniform(r) - 0.5 - (p == q ? 2 : 0);
-  for (int p = 0; p < norb; p++)
-    for (int q = 0; q <= p; q++)
-      for (int a = 0; a < norb; a++)
-        for (int b = 0; b <= a; b++) {
-          if (p * norb + q < a * norb + b) continue;
-          double v = 0.1 * (util_rng_uniform(r) - 0.5);
-          int idx[8][4] = {{p, q, a, b}, {q, p, a, b}, {p, q, b, a}, {q, p, b, a},
-                           {a, b, p, q}, {b, a, p, q}, {a, b, q, p}, {b, a, q, p}};
-          for (int k = 0; k < 8; k++) s->h2[chem_h2_index(norb, idx[k][0], idx[k][1], idx[k][2], idx[k][3])] = v;
-        }
-}
-
 /* G = 2i (T - T^+) of the double i j -> a b as words under one parameter. */
 static void push_double(ans_circuit *c, const qubit_encoder *enc, int i, int j, int a, int b, int gen, int param) {
   pauli_acc *acc = pauli_acc_new(c->nqubits, 16);
@@ -231,8 +209,11 @@ static int bench_molecule(int norb, int nelec, int reps) {
   int n = 2 * norb;
   util_rng r;
   util_rng_seed(&r, 3);
+  /* random real integrals with the symmetries of real orbitals, scaled like a
+   * small molecule's (invented data; tests/support/testdata.c) */
+  const testdata_scales scales = {.h1 = 1.0, .diag0 = -2.0, .h2 = 0.1};
   chem_space sp;
-  random_space(norb, nelec, &r, &sp);
+  testdata_space(&sp, norb, (nelec + 1) / 2, nelec / 2, &scales, &r);
   qubit_encoder *enc = qubit_encoder_new(IR_ENC_JORDAN_WIGNER, n);
   pauli_sum H;
   pauli_sum_init(&H, n);

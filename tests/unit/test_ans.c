@@ -29,40 +29,20 @@
 
 #include "cairn/pool.h"
 #include "cairn/util.h"
+#include "../support/testdata.h"
 
 static const ir_encoding ENCODINGS[3] = {IR_ENC_JORDAN_WIGNER, IR_ENC_BRAVYI_KITAEV, IR_ENC_PARITY};
 
 /* ---- fixtures ---- */
 
-/* Random real integrals with the 8-fold symmetry (invented data). */
+/* Random real integrals with the 8-fold symmetry (invented data;
+ * tests/support/testdata.c). */
 static chem_space random_space(int norb, int nalpha, int nbeta, uint64_t seed) {
+  const testdata_scales k = {.e_constant = 0.5, .h1 = 0.4, .diag0 = -2.0, .diag_rise = 0.6, .h2 = 0.2, .coulomb = 0.4};
   chem_space s;
-  memset(&s, 0, sizeof s);
-  s.norb = norb;
-  s.nalpha = nalpha;
-  s.nbeta = nbeta;
-  s.e_constant = 0.5;
-  s.h1 = xcalloc((size_t)norb * norb, sizeof(double));
-  s.h2 = xcalloc((size_t)norb * norb * norb * norb, sizeof(double));
   util_rng r;
   util_rng_seed(&r, seed);
-  for (int p = 0; p < norb; p++)
-    for (int q = 0; q <= p; q++) {
-      double v = 0.4 * (util_rng_uniform(&r) - 0.5);
-      if (p == q) v -= 2.0 - 0.6 * p;
-      s.h1[p * norb + q] = s.h1[q * norb + p] = v;
-    }
-  for (int p = 0; p < norb; p++)
-    for (int q = 0; q <= p; q++)
-      for (int rr = 0; rr < norb; rr++)
-        for (int ss = 0; ss <= rr; ss++) {
-          if (p * (p + 1) / 2 + q < rr * (rr + 1) / 2 + ss) continue;
-          double v = 0.2 * (util_rng_uniform(&r) - 0.5);
-          if (p == q && rr == ss) v += 0.4;
-          int idx[8][4] = {{p, q, rr, ss}, {q, p, rr, ss}, {p, q, ss, rr}, {q, p, ss, rr},
-                           {rr, ss, p, q}, {ss, rr, p, q}, {rr, ss, q, p}, {ss, rr, q, p}};
-          for (int k = 0; k < 8; k++) s.h2[chem_h2_index(norb, idx[k][0], idx[k][1], idx[k][2], idx[k][3])] = v;
-        }
+  testdata_space(&s, norb, nalpha, nbeta, &k, &r);
   return s;
 }
 

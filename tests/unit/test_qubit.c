@@ -17,49 +17,24 @@
 
 #include "cairn/qubit.h"
 #include "cairn/util.h"
+#include "../support/testdata.h"
 
 static const ir_encoding ENCODINGS[3] = {IR_ENC_JORDAN_WIGNER, IR_ENC_BRAVYI_KITAEV, IR_ENC_PARITY};
 
 /* ---- helpers ---- */
 
-/* A random active space: real integrals with the 8-fold permutational
- * symmetry; with `irrep` given, integrals that break the Z2 labelling of the
- * orbitals (a point group of order two) are zero.  Invented data. */
+/* A random active space (tests/support/testdata.c): real integrals with the
+ * 8-fold permutational symmetry; with `irrep` given, integrals that break the
+ * Z2 labelling of the orbitals (a point group of order two) are zero.
+ * Invented data. */
 static chem_space random_space(int norb, int nalpha, int nbeta, uint64_t seed, const int *irrep) {
-  chem_space s = {0};
-  s.norb = norb;
-  s.nalpha = nalpha;
-  s.nbeta = nbeta;
-  s.e_constant = 0.75;
-  s.h1 = xcalloc((size_t)norb * norb, sizeof(double));
-  s.h2 = xcalloc((size_t)norb * norb * norb * norb, sizeof(double));
+  const testdata_scales k = {.e_constant = 0.75, .h1 = 1.0, .diag0 = -2.0, .diag_rise = 0.3,
+                             .h2 = 0.3, .coulomb = 0.5, .irrep = irrep};
+  chem_space s;
   util_rng r;
   util_rng_seed(&r, seed);
-  for (int p = 0; p < norb; p++)
-    for (int q = 0; q <= p; q++) {
-      double v = util_rng_uniform(&r) - 0.5;
-      if (p == q) v -= 2.0 - 0.3 * p;
-      if (irrep && irrep[p] != irrep[q]) v = 0;
-      s.h1[p * norb + q] = s.h1[q * norb + p] = v;
-    }
-  for (int p = 0; p < norb; p++)
-    for (int q = 0; q <= p; q++)
-      for (int rr = 0; rr < norb; rr++)
-        for (int ss = 0; ss <= rr; ss++) {
-          if (p * (p + 1) / 2 + q < rr * (rr + 1) / 2 + ss) continue;
-          double v = 0.3 * (util_rng_uniform(&r) - 0.5);
-          if (p == q && rr == ss) v += 0.5;
-          if (irrep && (irrep[p] ^ irrep[q] ^ irrep[rr] ^ irrep[ss])) v = 0;
-          int idx[8][4] = {{p, q, rr, ss}, {q, p, rr, ss}, {p, q, ss, rr}, {q, p, ss, rr},
-                           {rr, ss, p, q}, {ss, rr, p, q}, {rr, ss, q, p}, {ss, rr, q, p}};
-          for (int k = 0; k < 8; k++) s.h2[chem_h2_index(norb, idx[k][0], idx[k][1], idx[k][2], idx[k][3])] = v;
-        }
+  testdata_space(&s, norb, nalpha, nbeta, &k, &r);
   return s;
-}
-
-static void free_space(chem_space *s) {
-  free(s->h1);
-  free(s->h2);
 }
 
 /* The slow route: every integral as a product of ladder operators. */
@@ -291,7 +266,7 @@ static void test_hamiltonian_routes(void **state) {
       pauli_sum_free(&slow);
       qubit_encoder_free(enc);
     }
-    free_space(&s);
+    chem_space_free(&s);
   }
 }
 
@@ -337,7 +312,7 @@ static void test_symmetry_commutators(void **state) {
     pauli_sum_free(&c);
     qubit_encoder_free(enc);
   }
-  free_space(&s);
+  chem_space_free(&s);
 }
 
 /* On basis states: N counts electrons, S_z = (Na - Nb)/2, and S^2 of the
@@ -435,7 +410,7 @@ static void check_taper(ir_encoding e, int norb, int nalpha, int nbeta, const in
   pauli_sum_free(&h);
   pauli_sum_free(&ht);
   qubit_encoder_free(enc);
-  free_space(&s);
+  chem_space_free(&s);
 }
 
 static void test_taper(void **state) {
@@ -484,7 +459,7 @@ static void test_taper_names(void **state) {
   qubit_taper_free(&t);
   pauli_sum_free(&h);
   qubit_encoder_free(enc);
-  free_space(&s);
+  chem_space_free(&s);
 }
 
 
@@ -556,7 +531,7 @@ static void test_wide_hamiltonian(void **state) {
     pauli_sum_free(&ht);
     qubit_encoder_free(enc);
   }
-  free_space(&s);
+  chem_space_free(&s);
 }
 
 int main(void) {
