@@ -20,6 +20,7 @@
 #include "cairn/qubit.h"
 #include "cairn/util.h"
 #include "../support/testdata.h"
+#include "../support/testref.h"
 
 #include <stdio.h>
 #include <stdlib.h>
@@ -49,31 +50,6 @@ static int cmp_double(const void *a, const void *b) {
   return x < y ? -1 : x > y;
 }
 
-/* The generic route: every integral as a ladder-operator product. */
-static void generic_hamiltonian(const chem_space *s, const qubit_encoder *enc, pauli_sum *out) {
-  int nq = 2 * s->norb, no = s->norb;
-  pauli_acc *acc = pauli_acc_new(nq, 1 << 16);
-  uint64_t zero[2] = {0, 0};
-  pauli_acc_add(acc, zero, zero, s->e_constant);
-  for (int P = 0; P < nq; P++)
-    for (int Q = 0; Q < nq; Q++) {
-      if ((P ^ Q) & 1) continue;
-      qubit_ladder ops[2] = {{P, 1}, {Q, 0}};
-      qubit_encoder_add_product(enc, ops, 2, s->h1[(P / 2) * no + Q / 2], acc);
-    }
-  for (int P = 0; P < nq; P++)
-    for (int Q = 0; Q < nq; Q++)
-      for (int R = 0; R < nq; R++)
-        for (int S = 0; S < nq; S++) {
-          if (((P ^ Q) & 1) || ((R ^ S) & 1)) continue;
-          double g = s->h2[chem_h2_index(no, P / 2, Q / 2, R / 2, S / 2)];
-          if (g == 0) continue;
-          qubit_ladder ops[4] = {{P, 1}, {R, 1}, {S, 0}, {Q, 0}};
-          qubit_encoder_add_product(enc, ops, 4, 0.5 * g, acc);
-        }
-  pauli_acc_finish(acc, out, 1e-14);
-}
-
 /* Build H `reps` times in encoding e (in this process); median seconds. */
 static result run_case(const chem_space *s, ir_encoding e, int reps, int generic) {
   result r = {0};
@@ -83,7 +59,7 @@ static result run_case(const chem_space *s, ir_encoding e, int reps, int generic
     pauli_sum h;
     pauli_sum_init(&h, 2 * s->norb);
     double t0 = util_now();
-    if (generic) generic_hamiltonian(s, enc, &h);
+    if (generic) testref_hamiltonian(s, enc, 1 << 16, &h); /* tests/support/testref.c */
     else qubit_hamiltonian(s, enc, &h);
     t[k] = util_now() - t0;
     r.terms = h.len;

@@ -18,6 +18,7 @@
 #include "cairn/qubit.h"
 #include "cairn/util.h"
 #include "../support/testdata.h"
+#include "../support/testref.h"
 
 static const ir_encoding ENCODINGS[3] = {IR_ENC_JORDAN_WIGNER, IR_ENC_BRAVYI_KITAEV, IR_ENC_PARITY};
 
@@ -35,31 +36,6 @@ static chem_space random_space(int norb, int nalpha, int nbeta, uint64_t seed, c
   util_rng_seed(&r, seed);
   testdata_space(&s, norb, nalpha, nbeta, &k, &r);
   return s;
-}
-
-/* The slow route: every integral as a product of ladder operators. */
-static void slow_hamiltonian(const chem_space *s, const qubit_encoder *enc, pauli_sum *out) {
-  int nq = 2 * s->norb, no = s->norb;
-  pauli_acc *acc = pauli_acc_new(nq, 1024);
-  uint64_t zero[4] = {0};
-  pauli_acc_add(acc, zero, zero, s->e_constant);
-  for (int P = 0; P < nq; P++)
-    for (int Q = 0; Q < nq; Q++) {
-      if ((P ^ Q) & 1) continue;
-      qubit_ladder ops[2] = {{P, 1}, {Q, 0}};
-      qubit_encoder_add_product(enc, ops, 2, s->h1[(P / 2) * no + Q / 2], acc);
-    }
-  for (int P = 0; P < nq; P++)
-    for (int Q = 0; Q < nq; Q++)
-      for (int R = 0; R < nq; R++)
-        for (int S = 0; S < nq; S++) {
-          if (((P ^ Q) & 1) || ((R ^ S) & 1)) continue;
-          double g = s->h2[chem_h2_index(no, P / 2, Q / 2, R / 2, S / 2)];
-          if (g == 0) continue;
-          qubit_ladder ops[4] = {{P, 1}, {R, 1}, {S, 0}, {Q, 0}};
-          qubit_encoder_add_product(enc, ops, 4, 0.5 * g, acc);
-        }
-  pauli_acc_finish(acc, out, 1e-14);
 }
 
 /* max |a - b| over all words */
@@ -257,7 +233,7 @@ static void test_hamiltonian_routes(void **state) {
       pauli_sum_init(&fast, 2 * norb);
       pauli_sum_init(&slow, 2 * norb);
       qubit_hamiltonian(&s, enc, &fast);
-      slow_hamiltonian(&s, enc, &slow);
+      testref_hamiltonian(&s, enc, 1024, &slow);
       assert_true(fast.len > 0);
       assert_true(sum_distance(&fast, &slow) < 1e-12);
       for (size_t t = 0; t < fast.len; t++) assert_true(cimag(fast.c[t]) == 0);
@@ -514,7 +490,7 @@ static void test_wide_hamiltonian(void **state) {
     pauli_sum_init(&slow, n);
     pauli_sum_init(&ht, n);
     qubit_hamiltonian(&s, enc, &fast);
-    slow_hamiltonian(&s, enc, &slow);
+    testref_hamiltonian(&s, enc, 1024, &slow);
     assert_true(fast.len > 100);
     assert_true(sum_distance(&fast, &slow) < 1e-12);
     uint64_t ref[2] = {0, 0}, tref[2] = {0, 0};
