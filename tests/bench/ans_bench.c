@@ -23,6 +23,7 @@
 #include "cairn/pool.h"
 #include "cairn/util.h"
 #include "../support/testdata.h"
+#include "../support/testref.h"
 
 #include <math.h>
 #include <stdio.h>
@@ -114,33 +115,6 @@ static void screen_case(const chem_space *cs, ir_rule_kind kind, int reps, resul
   out->peak_mb = (double)util_peak_rss() / 1048576.0;
 }
 
-/* The generic route for every generator of a pool: [G, H] by the Pauli
- * algebra, then (i/2)<b|[G, H]|b> term by term at the basis state b. */
-static double generic_gradient(const ans_pool *pool, size_t k, const pauli_sum *H, const uint64_t *b) {
-  static const double complex ip[4] = {1, I, -1, -I};
-  const ans_gen *g = &pool->gen[k];
-  pauli_sum G, C;
-  pauli_sum_init(&G, pool->words.n);
-  pauli_sum_init(&C, pool->words.n);
-  for (size_t t = g->off; t < g->off + g->len; t++)
-    pauli_sum_add(&G, pauli_sum_x(&pool->words, t), pauli_sum_z(&pool->words, t), pool->words.c[t]);
-  pauli_sum_commutator(&C, &G, H);
-  double complex e = 0;
-  for (size_t t = 0; t < C.len; t++) {
-    const uint64_t *x = pauli_sum_x(&C, t), *z = pauli_sum_z(&C, t);
-    int zero = 1, neg = 0, y = 0;
-    for (int i = 0; i < C.nw; i++) {
-      zero &= x[i] == 0;
-      neg += __builtin_popcountll(z[i] & b[i]);
-      y += __builtin_popcountll(x[i] & z[i]);
-    }
-    if (zero) e += C.c[t] * ip[y & 3] * ((neg & 1) ? -1.0 : 1.0);
-  }
-  pauli_sum_free(&G);
-  pauli_sum_free(&C);
-  return creal(0.5 * I * e);
-}
-
 static void baseline_case(result *out) {
   chem_space cs;
   random_space(&cs, 10, 3, 7);
@@ -162,7 +136,7 @@ static void baseline_case(result *out) {
     closed += util_now() - a;
     a = util_now();
     for (size_t k = 0; k < pl.pool.len; k++) {
-      double g = generic_gradient(&pl.pool, k, s.prob.H, pl.ref.bits);
+      double g = testref_gradient(&pl.pool, k, s.prob.H, pl.ref.bits);
       double diff = fabs(g - pl.pool.gen[k].gradient);
       if (diff > maxdiff) maxdiff = diff;
     }

@@ -30,6 +30,7 @@
 #include "cairn/pool.h"
 #include "cairn/util.h"
 #include "../support/testdata.h"
+#include "../support/testref.h"
 
 static const ir_encoding ENCODINGS[3] = {IR_ENC_JORDAN_WIGNER, IR_ENC_BRAVYI_KITAEV, IR_ENC_PARITY};
 
@@ -741,36 +742,10 @@ static void test_circuit(void **state) {
   }
 }
 
-/* (i/2)<b|[G, H]|b> at a basis state by the generic route: the commutator by
- * the Pauli algebra, then its diagonal terms. */
-static double generic_gradient(const ans_pool *pool, size_t k, const pauli_sum *H, const uint64_t *b) {
-  const ans_gen *g = &pool->gen[k];
-  pauli_sum G, Cm;
-  pauli_sum_init(&G, pool->words.n);
-  pauli_sum_init(&Cm, pool->words.n);
-  for (size_t t = g->off; t < g->off + g->len; t++)
-    pauli_sum_add(&G, pauli_sum_x(&pool->words, t), pauli_sum_z(&pool->words, t), pool->words.c[t]);
-  pauli_sum_commutator(&Cm, &G, H);
-  double complex e = 0;
-  for (size_t t = 0; t < Cm.len; t++) {
-    const uint64_t *x = pauli_sum_x(&Cm, t), *z = pauli_sum_z(&Cm, t);
-    int zero = 1, neg = 0, y = 0;
-    for (int i = 0; i < Cm.nw; i++) {
-      zero &= x[i] == 0;
-      neg += __builtin_popcountll(z[i] & b[i]);
-      y += __builtin_popcountll(x[i] & z[i]);
-    }
-    if (zero) e += Cm.c[t] * IP[y & 3] * ((neg & 1) ? -1.0 : 1.0);
-  }
-  pauli_sum_free(&G);
-  pauli_sum_free(&Cm);
-  return creal(0.5 * I * e);
-}
-
 /* Registers wider than one 64-bit word (68 qubits, sparse random integrals
  * across the word boundary; invented data): screening gradients agree with
- * the generic commutator route, signatures with the fermionic facts, in every
- * encoding, with and without tapering. */
+ * the generic commutator route (testref_gradient), signatures with the
+ * fermionic facts, in every encoding, with and without tapering. */
 static void test_wide_register(void **state) {
   (void)state;
   static const char *const lines[] = {"doubles", "qubit doubles", "entanglers", "singles spin-adapted"};
@@ -814,7 +789,7 @@ static void test_wide_register(void **state) {
       assert_true(pool->len > 1000);
       double worst = 0;
       for (size_t k = 0; k < pool->len; k += 53) {
-        double g = generic_gradient(pool, k, f.s.prob.H, f.pl.ref.bits);
+        double g = testref_gradient(pool, k, f.s.prob.H, f.pl.ref.bits);
         worst = fmax(worst, fabs(g - pool->gen[k].gradient));
       }
       assert_true(worst < 1e-12);
