@@ -14,7 +14,7 @@ tests_unit_test_ans_LDADD = $(TESTSUPPORT_LIBS) $(UNIT_LDADD)
 ## reference checks: a C driver over FCIDUMP files, checked by numpy and psi4
 check_PROGRAMS += tests/ref/ans_driver
 tests_ref_ans_driver_SOURCES = tests/ref/ans_driver.c
-tests_ref_ans_driver_LDADD = $(CAIRN_LIBS)
+tests_ref_ans_driver_LDADD = $(TESTSUPPORT_LIBS) $(CAIRN_LIBS)
 TESTS += tests/ref/ans_gradients.py tests/ref/ans_doubles.py tests/ref/ans_symmetry.py tests/ref/ans_show.py
 EXTRA_DIST += tests/ref/ans_gradients.py tests/ref/ans_doubles.py tests/ref/ans_symmetry.py tests/ref/ans_common.py \
 	tests/ref/ans_show.py

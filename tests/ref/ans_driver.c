@@ -20,6 +20,7 @@
 #include "cairn/json.h"
 #include "cairn/pool.h"
 #include "cairn/util.h"
+#include "../support/testrecipe.h"
 
 #include <math.h>
 #include <stdio.h>
@@ -29,52 +30,6 @@
 static int usage(const char *msg) {
   fprintf(stderr, "ans_driver: %s\n", msg);
   return 2;
-}
-
-/* The subset of the rule language the checks use. */
-static int parse_rule(const char *l, ir_rule *ru) {
-  memset(ru, 0, sizeof *ru);
-  if (strstr(l, "generalized")) ru->options |= IR_OPT_GENERALIZED;
-  if (strstr(l, "paired")) ru->options |= IR_OPT_PAIRED;
-  if (strstr(l, "spin-adapted")) ru->options |= IR_OPT_SPIN_ADAPTED;
-  if (!strncmp(l, "qubit singles", 13)) ru->kind = IR_RULE_QUBIT_SINGLES;
-  else if (!strncmp(l, "qubit doubles", 13)) ru->kind = IR_RULE_QUBIT_DOUBLES;
-  else if (!strncmp(l, "singles", 7)) ru->kind = IR_RULE_SINGLES;
-  else if (!strncmp(l, "doubles", 7)) ru->kind = IR_RULE_DOUBLES;
-  else if (!strncmp(l, "entanglers", 10)) ru->kind = IR_RULE_ENTANGLERS;
-  else if (!strncmp(l, "word ", 5)) {
-    ru->kind = IR_RULE_WORD;
-    ru->letters = xcalloc(strlen(l), sizeof *ru->letters);
-    const char *p = l + 5;
-    while (*p) {
-      while (*p == ' ') p++;
-      if (!*p) break;
-      ru->letters[ru->nletters].letter = *p++;
-      ru->letters[ru->nletters].qubit = (int)strtol(p, (char **)&p, 10);
-      ru->nletters++;
-    }
-  } else if (!strncmp(l, "excite ", 7)) {
-    ru->kind = IR_RULE_EXCITE;
-    ru->from = xcalloc(strlen(l), sizeof(int));
-    ru->to = xcalloc(strlen(l), sizeof(int));
-    const char *p = l + 7;
-    int *dst = ru->from, k = 0;
-    while (*p) {
-      while (*p == ' ') p++;
-      if (!*p) break;
-      if (*p == '-') {
-        p += 2;
-        ru->nexcite = k;
-        dst = ru->to;
-        k = 0;
-        continue;
-      }
-      dst[k++] = (int)strtol(p, (char **)&p, 10);
-    }
-  } else {
-    return -1;
-  }
-  return 0;
 }
 
 int main(int argc, char **argv) {
@@ -129,25 +84,11 @@ int main(int argc, char **argv) {
   else if (strcmp(choose, "all") != 0) r.choose.kind = IR_CHOOSE_COUNT, r.choose.count = atoi(choose);
 
   diag_ctx *d = diag_new(stderr, DIAG_COLOR_NEVER);
-  /* a recipe-like text so that every message has a line */
-  util_buf b = {0};
-  util_buf_printf(&b, "reference\nkeep particles\nkeep spin-z\nkeep spin-squared\nencoding\nchoose\npool {\n");
-  for (int i = 0; i < nrules; i++) util_buf_printf(&b, "  %s\n", rules[i]);
-  util_buf_printf(&b, "}\n");
-  int32_t file = diag_add_file(d, "driver.cairn", b.s, b.len);
-  r.path = "driver.cairn";
-  r.reference.span = diag_line_span(d, file, 1);
-  for (int s = 0; s < IR_SYM_COUNT; s++) r.keep[s].span = diag_line_span(d, file, 2 + s);
-  r.encoding_span = diag_line_span(d, file, 5);
-  r.choose.span = diag_line_span(d, file, 6);
-  r.pool_span = diag_line_span(d, file, 7);
+  /* a recipe-like text so that every message has a line (tests/support/testrecipe.c) */
+  int32_t file = testrecipe_text(d, "driver.cairn", &r, rules, nrules);
   r.rules = xcalloc((size_t)(nrules ? nrules : 1), sizeof *r.rules);
   r.nrules = nrules;
-  for (int i = 0; i < nrules; i++) {
-    if (parse_rule(rules[i], &r.rules[i]) != 0) return usage("rule not understood");
-    r.rules[i].span = diag_line_span(d, file, 8 + i);
-    r.rules[i].span.start += 2;
-  }
+  if (testrecipe_rules(d, file, r.rules, rules, nrules) < nrules) return usage("rule not understood");
 
   chem_space cs;
   if (fcidump_read(d, fcidump, DIAG_NOWHERE, &cs) != 0) return 2;
@@ -208,11 +149,7 @@ int main(int argc, char **argv) {
   ans_plan_free(&pl);
   ans_setup_free(&s);
   chem_space_free(&cs);
-  for (int i = 0; i < nrules; i++) {
-    free(r.rules[i].letters);
-    free(r.rules[i].from);
-    free(r.rules[i].to);
-  }
+  testrecipe_rules_free(r.rules, nrules);
   free(r.rules);
   free(r.reference.bits);
   int errors = diag_errors(d);

@@ -30,6 +30,7 @@
 #include "cairn/pool.h"
 #include "cairn/util.h"
 #include "../support/testdata.h"
+#include "../support/testrecipe.h"
 #include "../support/testref.h"
 
 static const ir_encoding ENCODINGS[3] = {IR_ENC_JORDAN_WIGNER, IR_ENC_BRAVYI_KITAEV, IR_ENC_PARITY};
@@ -54,6 +55,7 @@ typedef struct fix {
   char *msg;          /* diagnostics written so far (open_memstream) */
   size_t msglen;
   FILE *err;
+  int32_t file;       /* the recipe's text */
   ir_recipe r;
   ir_rule rules[16];
   chem_space cs;
@@ -63,94 +65,33 @@ typedef struct fix {
   int built;
 } fix;
 
-/* Text of the recipe's lines: line 1 reference, 2-4 keeps, 5 encoding,
- * 6 choose, 7 pool, 8.. the rules. */
+/* The recipe's text and spans (tests/support/testrecipe.c); the rules are
+ * parsed by fix_rules. */
 static void fix_init(fix *f, const char *const *rule_lines, int nrules, ir_encoding enc, ir_reference_kind ref) {
   memset(f, 0, sizeof *f);
   f->err = open_memstream(&f->msg, &f->msglen);
   f->d = diag_new(f->err, DIAG_COLOR_NEVER);
-  util_buf b = {0};
-  util_buf_printf(&b, "reference\nkeep particles\nkeep spin-z\nkeep spin-squared\nencoding\nchoose\npool {\n");
-  for (int i = 0; i < nrules; i++) util_buf_printf(&b, "  %s\n", rule_lines[i]);
-  util_buf_printf(&b, "}\n");
-  int32_t file = diag_add_file(f->d, "test.cairn", b.s, b.len);
-  f->r.path = "test.cairn";
+  f->file = testrecipe_text(f->d, "test.cairn", &f->r, rule_lines, nrules);
   f->r.encoding = enc;
-  f->r.encoding_span = diag_line_span(f->d, file, 5);
   f->r.reference.kind = ref;
-  f->r.reference.span = diag_line_span(f->d, file, 1);
-  for (int s = 0; s < IR_SYM_COUNT; s++) f->r.keep[s].span = diag_line_span(f->d, file, 2 + s);
   f->r.choose.kind = IR_CHOOSE_ALL;
-  f->r.choose.span = diag_line_span(f->d, file, 6);
-  f->r.pool_span = diag_line_span(f->d, file, 7);
   f->r.trotter = 1;
   f->r.rules = f->rules;
   f->r.nrules = nrules;
   f->r.multiplicity = 1;
-  for (int i = 0; i < nrules; i++) {
-    diag_span sp = diag_line_span(f->d, file, 8 + i);
-    sp.start += 2; /* after the indentation */
-    f->rules[i].span = sp;
-  }
 }
 
 /* Parse the rule lines into IR rules (the subset of the language the tests use). */
 static void fix_rules(fix *f, const char *const *rule_lines) {
-  for (int i = 0; i < f->r.nrules; i++) {
-    ir_rule *ru = &f->rules[i];
-    const char *l = rule_lines[i];
-    if (strstr(l, "generalized")) ru->options |= IR_OPT_GENERALIZED;
-    if (strstr(l, "paired")) ru->options |= IR_OPT_PAIRED;
-    if (strstr(l, "spin-adapted")) ru->options |= IR_OPT_SPIN_ADAPTED;
-    if (!strncmp(l, "qubit singles", 13)) ru->kind = IR_RULE_QUBIT_SINGLES;
-    else if (!strncmp(l, "qubit doubles", 13)) ru->kind = IR_RULE_QUBIT_DOUBLES;
-    else if (!strncmp(l, "singles", 7)) ru->kind = IR_RULE_SINGLES;
-    else if (!strncmp(l, "doubles", 7)) ru->kind = IR_RULE_DOUBLES;
-    else if (!strncmp(l, "entanglers", 10)) ru->kind = IR_RULE_ENTANGLERS;
-    else if (!strncmp(l, "word ", 5)) {
-      ru->kind = IR_RULE_WORD;
-      ru->letters = xcalloc(16, sizeof *ru->letters);
-      const char *p = l + 5;
-      while (*p) {
-        while (*p == ' ') p++;
-        if (!*p) break;
-        ru->letters[ru->nletters].letter = *p++;
-        ru->letters[ru->nletters].qubit = (int)strtol(p, (char **)&p, 10);
-        ru->nletters++;
-      }
-    } else if (!strncmp(l, "excite ", 7)) {
-      ru->kind = IR_RULE_EXCITE;
-      ru->from = xcalloc(8, sizeof(int));
-      ru->to = xcalloc(8, sizeof(int));
-      const char *p = l + 7;
-      int *dst = ru->from, k = 0;
-      while (*p) {
-        while (*p == ' ') p++;
-        if (!*p) break;
-        if (*p == '-') {
-          p += 2;
-          ru->nexcite = k;
-          dst = ru->to;
-          k = 0;
-          continue;
-        }
-        dst[k++] = (int)strtol(p, (char **)&p, 10);
-      }
-    } else {
-      fail_msg("test rule `%s` not understood", l);
-    }
-  }
+  int ok = testrecipe_rules(f->d, f->file, f->rules, rule_lines, f->r.nrules);
+  if (ok < f->r.nrules) fail_msg("test rule `%s` not understood", rule_lines[ok]);
 }
 
 static void fix_free(fix *f) {
   if (f->built) ans_plan_free(&f->pl);
   ans_setup_free(&f->s);
   if (f->have_cs) chem_space_free(&f->cs);
-  for (int i = 0; i < f->r.nrules; i++) {
-    free(f->rules[i].letters);
-    free(f->rules[i].from);
-    free(f->rules[i].to);
-  }
+  testrecipe_rules_free(f->rules, f->r.nrules);
   diag_free(f->d);
   fclose(f->err);
   free(f->msg);
