@@ -221,6 +221,16 @@ double util_now(void) {
   return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
 }
 
+static int cmp_double(const void *a, const void *b) {
+  double x = *(const double *)a, y = *(const double *)b;
+  return x < y ? -1 : x > y;
+}
+
+double util_median(double *v, size_t n) {
+  qsort(v, n, sizeof *v, cmp_double);
+  return n % 2 ? v[n / 2] : 0.5 * (v[n / 2 - 1] + v[n / 2]);
+}
+
 const char *util_fmt_double(char *buf, double x) {
   if (x == 0) {
     strcpy(buf, signbit(x) ? "-0" : "0");

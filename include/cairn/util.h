@@ -55,6 +55,10 @@ uint64_t util_mem_available(void);
 uint64_t util_peak_rss(void);
 /* Wall-clock seconds from a monotonic clock. */
 double util_now(void);
+/* Median of v[0..n), n >= 1: sorts v in place (ascending, so v[0] and v[n-1]
+ * are then the extremes) and returns the middle value, or the mean of the two
+ * middle values when n is even. */
+double util_median(double *v, size_t n);
 
 /* Shortest decimal spelling of x that reads back to the same double
  * ("%.17g" trimmed), written into buf (at least 32 bytes). */

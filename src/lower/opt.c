@@ -166,11 +166,6 @@ static int run_start(sim_engine *e, const sim_opt_options *o, int k, int nstarts
   return 0;
 }
 
-static int cmp_double(const void *a, const void *b) {
-  double x = *(const double *)a, y = *(const double *)b;
-  return x < y ? -1 : x > y;
-}
-
 int sim_optimize(sim_engine *e, const sim_opt_options *o, sim_opt_result *out, char *err, size_t errlen) {
   memset(out, 0, sizeof *out);
   if (o->ngiven < 0 || o->nrandom < 0 || o->ngiven + o->nrandom < 1) {
@@ -199,10 +194,9 @@ int sim_optimize(sim_engine *e, const sim_opt_options *o, sim_opt_result *out, c
     en[k] = out->start[k].energy;
     if (en[k] < out->start[out->best].energy) out->best = k;
   }
-  qsort(en, (size_t)ns, sizeof *en, cmp_double);
+  out->e_median = util_median(en, (size_t)ns); /* sorts en */
   out->e_min = en[0];
   out->e_max = en[ns - 1];
-  out->e_median = ns % 2 ? en[ns / 2] : 0.5 * (en[ns / 2 - 1] + en[ns / 2]);
   free(en);
   sim_prepare(e, out->start[out->best].theta);
   out->seconds = util_now() - t0;

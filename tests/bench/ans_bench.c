@@ -52,16 +52,6 @@ static void random_space(chem_space *s, int norb, int nocc, uint64_t seed) {
   testdata_space(s, norb, nocc, nocc, &k, &r);
 }
 
-static int cmp_double(const void *a, const void *b) {
-  double x = *(const double *)a, y = *(const double *)b;
-  return x < y ? -1 : x > y;
-}
-
-static double median(double *v, int n) {
-  qsort(v, (size_t)n, sizeof *v, cmp_double);
-  return n % 2 ? v[n / 2] : 0.5 * (v[n / 2 - 1] + v[n / 2]);
-}
-
 /* A recipe with one pool rule, choose all, nothing kept. */
 static void one_rule(ir_recipe *r, ir_rule *rule, ir_rule_kind k, const chem_space *cs) {
   memset(r, 0, sizeof *r);
@@ -107,9 +97,9 @@ static void screen_case(const chem_space *cs, ir_rule_kind kind, int reps, resul
     tr[k] = util_now() - a;
     ans_plan_free(&pl);
   }
-  out->screen_s = median(ts, reps);
-  out->screen_cpu = median(tc, reps);
-  out->rescreen_s = median(tr, reps);
+  out->screen_s = util_median(ts, (size_t)reps);
+  out->screen_cpu = util_median(tc, (size_t)reps);
+  out->rescreen_s = util_median(tr, (size_t)reps);
   ans_setup_free(&s);
   diag_free(d);
   out->peak_mb = (double)util_peak_rss() / 1048576.0;

@@ -97,16 +97,6 @@ static void naive_put(gate_sink *s, const gate *g, size_t n) {
 
 static void naive_finish(gate_sink *s) { (void)s; }
 
-static int cmp_double(const void *a, const void *b) {
-  double x = *(const double *)a, y = *(const double *)b;
-  return (x > y) - (x < y);
-}
-
-static double median(double *v, int n) {
-  qsort(v, (size_t)n, sizeof *v, cmp_double);
-  return n % 2 ? v[n / 2] : 0.5 * (v[n / 2 - 1] + v[n / 2]);
-}
-
 static FILE *open_out(const char *dir, const char *name, char **path) {
   *path = dir ? xasprintf("%s/%s", dir, name) : xstrdup("/dev/null");
   FILE *f = fopen(*path, "w");
@@ -185,7 +175,7 @@ int main(void) {
       tm[k] = util_now() - t0;
       close_out(f, dir, path);
     }
-    double t = median(tm, reps);
+    double t = util_median(tm, (size_t)reps);
     double rate = runs[r].k->total / t;
     if (r < 2 && (best_rate == 0 || rate < best_rate)) best_rate = rate;
     printf("  %-15s %11ld gates, %6.2f GB, %6.2f s (counting pass + writing pass): %6.1f M gates/s, %6.0f MB/s, "
@@ -206,7 +196,7 @@ int main(void) {
     tm[k] = util_now() - t0;
     close_out(f, dir, path);
   }
-  double tn = median(tm, reps);
+  double tn = util_median(tm, (size_t)reps);
   printf("  baseline (fprintf per gate, qasm3 lines, one pass): %.2f s: %.1f M gates/s; ours/baseline %.2f\n", tn,
          kp.total / tn / 1e6, best_rate / (kp.total / tn));
   printf("  peak memory (RSS): %.0f MB\n", util_peak_rss() / 1e6);

@@ -45,11 +45,6 @@ static void random_space(chem_space *s, int norb, uint64_t seed) {
   testdata_space(s, norb, norb / 4, norb / 4, &k, &r);
 }
 
-static int cmp_double(const void *a, const void *b) {
-  double x = *(const double *)a, y = *(const double *)b;
-  return x < y ? -1 : x > y;
-}
-
 /* Build H `reps` times in encoding e (in this process); median seconds. */
 static result run_case(const chem_space *s, ir_encoding e, int reps, int generic) {
   result r = {0};
@@ -66,8 +61,7 @@ static result run_case(const chem_space *s, ir_encoding e, int reps, int generic
     pauli_sum_free(&h);
     qubit_encoder_free(enc);
   }
-  qsort(t, (size_t)reps, sizeof t[0], cmp_double);
-  r.seconds = t[reps / 2];
+  r.seconds = util_median(t, (size_t)reps);
   r.peak_mb = (double)util_peak_rss() / (1024.0 * 1024.0);
   return r;
 }

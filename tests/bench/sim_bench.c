@@ -31,16 +31,6 @@
 #include <omp.h>
 #endif
 
-static int cmp_double(const void *a, const void *b) {
-  double x = *(const double *)a, y = *(const double *)b;
-  return x < y ? -1 : x > y;
-}
-
-static double median(double *t, int n) {
-  qsort(t, (size_t)n, sizeof *t, cmp_double);
-  return n % 2 ? t[n / 2] : 0.5 * (t[n / 2 - 1] + t[n / 2]);
-}
-
 static double minimum(const double *t, int n) {
   double m = t[0];
   for (int k = 1; k < n; k++) m = t[k] < m ? t[k] : m;
@@ -77,7 +67,7 @@ static int bench_rotation(int n, int reps) {
     sv_copy(&b, &a);
     t[k] = util_now() - t0;
   }
-  double tc = median(t, reps);
+  double tc = util_median(t, (size_t)reps);
   printf(", \"copy\": {\"seconds\": %.6g, \"gbps\": %.4g}", tc, bytes / tc / 1e9);
   struct {
     const char *name;
@@ -96,7 +86,7 @@ static int bench_rotation(int n, int reps) {
       sv_rotate(&a, words[w].x & mask, words[w].z & mask, 0.1 + 0.01 * k);
       t[k] = util_now() - t0;
     }
-    double tr = median(t, reps);
+    double tr = util_median(t, (size_t)reps);
     printf("%s{\"word\": \"%s\", \"seconds\": %.6g, \"gbps\": %.4g, \"of_copy\": %.4g}", w ? ", " : "",
            words[w].name, tr, bytes / tr / 1e9, tc / tr);
   }
@@ -160,8 +150,8 @@ static int bench_evalgrad(const char *path, int reps) {
   printf("{\"qubits\": %d, \"threads\": %d, \"terms\": %zu, \"groups\": %zu, \"rotations\": %zu, \"params\": %d, "
          "\"repeats\": %d, \"energy\": %.17g, \"evalgrad_seconds\": %.6g, \"energy_seconds\": %.6g, "
          "\"apply_seconds\": %.6g, \"evalgrad_min\": %.6g, \"apply_min\": %.6g, \"gradient\": [",
-         c.nqubits, threads(), sv_op_terms(op), sv_op_groups(op), c.nrot, np, reps, E, median(t, reps),
-         median(t2, reps), median(t3, reps), minimum(t, reps), minimum(t3, reps));
+         c.nqubits, threads(), sv_op_terms(op), sv_op_groups(op), c.nrot, np, reps, E, util_median(t, (size_t)reps),
+         util_median(t2, (size_t)reps), util_median(t3, (size_t)reps), minimum(t, reps), minimum(t3, reps));
   for (int p = 0; p < np; p++) printf("%s%.17g", p ? ", " : "", grad[p]);
   printf("]}\n");
   sv_state_free(&out);
@@ -200,7 +190,7 @@ static double time_evalgrad(sim_engine *e, const double *theta, double *grad, in
     sim_energy_grad(e, theta, grad);
     t[k] = util_now() - t0;
   }
-  double m = median(t, reps);
+  double m = util_median(t, (size_t)reps);
   free(t);
   return m;
 }

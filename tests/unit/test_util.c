@@ -1,4 +1,4 @@
-/* test_util.c — number spelling, atomic output, the deterministic PRNG. */
+/* test_util.c — number spelling, atomic output, the deterministic PRNG, medians. */
 #include "config.h"
 
 #include <setjmp.h>
@@ -57,8 +57,22 @@ static void test_rng_repeatable(void **state) {
   for (int i = 0; i < 100; i++) assert_true(util_rng_next(&a) == util_rng_next(&b));
 }
 
+/* The median as commonly defined (common practice): the middle value of the
+ * sorted list, the mean of the two middle values for an even count. */
+static void test_median(void **state) {
+  (void)state;
+  double odd[5] = {3.0, -1.0, 7.5, 2.0, 2.5};
+  assert_true(util_median(odd, 5) == 2.5);
+  for (int i = 1; i < 5; i++) assert_true(odd[i - 1] <= odd[i]); /* sorted in place */
+  assert_true(odd[0] == -1.0 && odd[4] == 7.5);
+  double even[4] = {4.0, 1.0, 10.0, 2.0};
+  assert_true(util_median(even, 4) == 3.0);
+  double one[1] = {0.25};
+  assert_true(util_median(one, 1) == 0.25);
+}
+
 int main(void) {
   const struct CMUnitTest tests[] = {cmocka_unit_test(test_fmt_double), cmocka_unit_test(test_atomic_write),
-                                     cmocka_unit_test(test_rng_repeatable)};
+                                     cmocka_unit_test(test_rng_repeatable), cmocka_unit_test(test_median)};
   return cmocka_run_group_tests(tests, NULL, NULL);
 }
