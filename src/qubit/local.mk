@@ -25,7 +25,6 @@ EXTRA_DIST += tests/ref/qubit_common.py tests/ref/qubit_spectrum.py tests/ref/qu
 noinst_PROGRAMS += tests/bench/qubit_bench
 tests_bench_qubit_bench_SOURCES = tests/bench/qubit_bench.c
 tests_bench_qubit_bench_LDADD = $(TESTSUPPORT_LIBS) $(CAIRN_LIBS)
-EXTRA_DIST += tests/bench/qubit_bench.sh
 BENCH_TARGETS += bench-qubit
 bench-qubit: tests/bench/qubit_bench$(EXEEXT)
-	$(SHELL) $(srcdir)/tests/bench/qubit_bench.sh $(abs_top_builddir) $(PYTHON)
+	$(SHELL) $(srcdir)/tests/bench/n2_fcidump.sh $(abs_top_builddir) $(PYTHON) qubit_bench

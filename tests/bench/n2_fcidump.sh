@@ -1,12 +1,15 @@
 #!/bin/sh
-# ans_bench.sh — `make bench` for the generators: psi4 writes a 40-qubit
-# active space (N2, cc-pVDZ, 2 core and 6 virtual orbitals frozen: 20 active
-# orbitals, the same case as the qubit-layer benchmark), then ans_bench
-# screens every flip-set entangler and every UCCSD double there and on the
-# 100-qubit random case.  Usage: ans_bench.sh BUILDDIR [PYTHON]
+# n2_fcidump.sh — `make bench-qubit` and `make bench-ans`: psi4 writes a
+# 40-qubit active space (N2, cc-pVDZ, 2 core and 6 virtual orbitals frozen:
+# 20 active orbitals), then the benchmark PROGRAM (tests/bench/qubit_bench:
+# the Hamiltonian in every encoding; tests/bench/ans_bench: screening of every
+# flip-set entangler and UCCSD double) runs on it and on its own 100-qubit
+# random case.  Without psi4 only the random cases run.
+# Usage: n2_fcidump.sh BUILDDIR PYTHON PROGRAM
 set -eu
 build=${1:-.}
 python=${2:-/usr/bin/python3}
+program=$3
 tmp=$(mktemp -d)
 trap 'rm -rf "$tmp"' EXIT
 build=$(cd "$build" && pwd)
@@ -25,8 +28,8 @@ psi4.fcidump(wfn, sys.argv[1])
 PY
 then
   echo "40-qubit case: N2/cc-pVDZ at 1.0977 A, 20 active orbitals, FCIDUMP written by psi4"
-  "$build/tests/bench/ans_bench" "$tmp/n2.fcidump"
+  "$build/tests/bench/$program" "$tmp/n2.fcidump"
 else
   echo "psi4 is not available: the 40-qubit FCIDUMP case is skipped"
-  "$build/tests/bench/ans_bench"
+  "$build/tests/bench/$program"
 fi
