@@ -82,6 +82,37 @@ static void structured_hermitian(util_rng *r, int n, const uint64_t *flips, int 
   pauli_sum_canonicalize(s, 0.0);
 }
 
+/* A random program (np parameters, nrot rotations) and a random Hamiltonian
+ * (nterms words) on n qubits from `seed`, and the engine over them. */
+static sim_engine *random_problem(uint64_t seed, int n, int np, int nrot, int nterms, ans_circuit *c, pauli_sum *H,
+                                  char *err, size_t errlen) {
+  util_rng r;
+  util_rng_seed(&r, seed);
+  random_circuit(&r, n, np, nrot, c);
+  random_hermitian(&r, n, nterms, H);
+  return sim_engine_new(c, H, err, errlen);
+}
+
+/* Free what a test made: the engine, the program and the Hamiltonian. */
+static void free_problem(sim_engine *e, ans_circuit *c, pauli_sum *H) {
+  sim_engine_free(e);
+  ans_circuit_free(c);
+  pauli_sum_free(H);
+}
+
+/* Central difference of the energy in parameter p with step h (the other
+ * parameters of theta[0..np) held). */
+static double central_difference(sim_engine *e, const double *theta, int np, int p, double h) {
+  double *tp = xmalloc((size_t)np * sizeof *tp);
+  memcpy(tp, theta, (size_t)np * sizeof *tp);
+  tp[p] = theta[p] + h;
+  double ep = sim_energy(e, tp);
+  tp[p] = theta[p] - h;
+  double em = sim_energy(e, tp);
+  free(tp);
+  return (ep - em) / (2 * h);
+}
+
 /* Adjoint gradient = central differences (step 1e-5, error ~1e-10) to 1e-7,
  * for registers of 1 to 12 qubits, shared parameters and fixed angles. */
 static void test_gradient_finite_differences(void **state) {
@@ -101,26 +132,18 @@ static void test_gradient_finite_differences(void **state) {
       char err[300];
       sim_engine *e = sim_engine_new(&c, &H, err, sizeof err);
       assert_non_null(e);
-      double theta[8], g[8], tp[8];
+      double theta[8], g[8];
       for (int p = 0; p < np; p++) theta[p] = 4 * util_rng_uniform(&r) - 2;
       double E = sim_energy_grad(e, theta, g);
       assert_true(fabs(E - sim_energy(e, theta)) < 1e-13);
-      const double h = 1e-5;
       for (int p = 0; p < np; p++) {
-        memcpy(tp, theta, sizeof tp);
-        tp[p] = theta[p] + h;
-        double ep = sim_energy(e, tp);
-        tp[p] = theta[p] - h;
-        double em = sim_energy(e, tp);
-        double fd = (ep - em) / (2 * h);
+        double fd = central_difference(e, theta, np, p, 1e-5);
         if (fabs(fd - g[p]) >= 1e-7) fprintf(stderr, "n=%d p=%d adjoint %.12g fd %.12g\n", n, p, g[p], fd);
         assert_true(fabs(fd - g[p]) < 1e-7);
         checked++;
         nonzero += fabs(fd) > 1e-4;
       }
-      sim_engine_free(e);
-      ans_circuit_free(&c);
-      pauli_sum_free(&H);
+      free_problem(e, &c, &H);
     }
   }
   assert_true(nonzero >= checked * 3 / 4); /* the gradients are not trivially zero */
@@ -199,35 +222,24 @@ static void test_gradient_fused(void **state) {
   assert_int_equal((int)sim_engine_rotations(e), 8 + 2 + 1 + 8 + 1 + 2);
   assert_int_equal((int)sim_engine_steps(e), 6);
   int np = c.nparams;
-  double theta[5], grad[5], tp[5];
+  double theta[5], grad[5];
   for (int p = 0; p < np; p++) theta[p] = 2 * util_rng_uniform(&r) - 1;
   sim_energy_grad(e, theta, grad);
   for (int p = 0; p < np; p++) {
-    memcpy(tp, theta, sizeof tp);
-    tp[p] = theta[p] + 1e-5;
-    double ep = sim_energy(e, tp);
-    tp[p] = theta[p] - 1e-5;
-    double em = sim_energy(e, tp);
-    assert_true(fabs((ep - em) / 2e-5 - grad[p]) < 1e-7);
+    assert_true(fabs(central_difference(e, theta, np, p, 1e-5) - grad[p]) < 1e-7);
     assert_true(fabs(grad[p]) > 1e-3); /* the check is not vacuous */
   }
-  sim_engine_free(e);
-  ans_circuit_free(&c);
-  pauli_sum_free(&H);
+  free_problem(e, &c, &H);
 }
 
 /* After a gradient pass the engine re-prepares |psi(theta)> for observables:
  * <psi|H|psi> of the objective itself equals the energy. */
 static void test_expect_after_gradient(void **state) {
   (void)state;
-  util_rng r;
-  util_rng_seed(&r, 22);
   ans_circuit c;
-  random_circuit(&r, 6, 3, 12, &c);
   pauli_sum H;
-  random_hermitian(&r, 6, 30, &H);
   char err[300];
-  sim_engine *e = sim_engine_new(&c, &H, err, sizeof err);
+  sim_engine *e = random_problem(22, 6, 3, 12, 30, &c, &H, err, sizeof err);
   sv_op *op = sim_observable(e, &H, err, sizeof err);
   assert_non_null(op);
   double theta[3] = {0.3, -0.7, 1.1}, g[3];
@@ -240,9 +252,7 @@ static void test_expect_after_gradient(void **state) {
   assert_null(sim_observable(e, &wrong, err, sizeof err));
   pauli_sum_free(&wrong);
   sv_op_free(op);
-  sim_engine_free(e);
-  ans_circuit_free(&c);
-  pauli_sum_free(&H);
+  free_problem(e, &c, &H);
 }
 
 /* One qubit, H = a X + b Y + c Z + d: the eigenvalues of n.sigma are +-1, so
@@ -268,14 +278,19 @@ static void one_qubit_problem(ans_circuit *c, pauli_sum *H, double *ground) {
   ans_circuit_push(c, ans_circuit_word(c, &x, &z), p1, 1.0, g1);
 }
 
+/* The one-qubit problem and the engine over it. */
+static sim_engine *one_qubit_engine(ans_circuit *c, pauli_sum *H, double *ground, char *err, size_t errlen) {
+  one_qubit_problem(c, H, ground);
+  return sim_engine_new(c, H, err, errlen);
+}
+
 static void test_every_method_finds_minimum(void **state) {
   (void)state;
   ans_circuit c;
   pauli_sum H;
   double ground;
-  one_qubit_problem(&c, &H, &ground);
   char err[300];
-  sim_engine *e = sim_engine_new(&c, &H, err, sizeof err);
+  sim_engine *e = one_qubit_engine(&c, &H, &ground, err, sizeof err);
   assert_non_null(e);
   for (int m = IR_OPT_LBFGS; m <= IR_OPT_NELDER_MEAD; m++) {
     sim_opt_options o;
@@ -309,9 +324,7 @@ static void test_every_method_finds_minimum(void **state) {
     sim_prepare(e, res.start[res.best].theta);
     sim_opt_result_free(&res);
   }
-  sim_engine_free(e);
-  ans_circuit_free(&c);
-  pauli_sum_free(&H);
+  free_problem(e, &c, &H);
 }
 
 static void run_twice_equal(sim_engine *e, sim_opt_options *o) {
@@ -334,14 +347,10 @@ static void run_twice_equal(sim_engine *e, sim_opt_options *o) {
  * does not depend on how many starts there are. */
 static void test_determinism(void **state) {
   (void)state;
-  util_rng r;
-  util_rng_seed(&r, 23);
   ans_circuit c;
-  random_circuit(&r, 8, 5, 16, &c);
   pauli_sum H;
-  random_hermitian(&r, 8, 60, &H);
   char err[300];
-  sim_engine *e = sim_engine_new(&c, &H, err, sizeof err);
+  sim_engine *e = random_problem(23, 8, 5, 16, 60, &c, &H, err, sizeof err);
   for (int m = IR_OPT_LBFGS; m <= IR_OPT_NELDER_MEAD; m++) {
     sim_opt_options o;
     sim_opt_options_init(&o);
@@ -369,9 +378,7 @@ static void test_determinism(void **state) {
   assert_true(memcmp(a.start[1].theta0, b.start[1].theta0, 5 * sizeof(double)) != 0);
   sim_opt_result_free(&a);
   sim_opt_result_free(&b);
-  sim_engine_free(e);
-  ans_circuit_free(&c);
-  pauli_sum_free(&H);
+  free_problem(e, &c, &H);
 }
 
 /* A given warm start is used as given, and its label kept. */
@@ -380,9 +387,8 @@ static void test_given_start(void **state) {
   ans_circuit c;
   pauli_sum H;
   double ground;
-  one_qubit_problem(&c, &H, &ground);
   char err[300];
-  sim_engine *e = sim_engine_new(&c, &H, err, sizeof err);
+  sim_engine *e = one_qubit_engine(&c, &H, &ground, err, sizeof err);
   const double warm[2] = {1.0, -0.5};
   const double *given[2] = {NULL, warm};
   const char *labels[2] = {"zeros", "warm"};
@@ -400,9 +406,7 @@ static void test_given_start(void **state) {
   o.ngiven = 0;
   assert_int_equal(sim_optimize(e, &o, &res, err, sizeof err), -1);
   assert_non_null(strstr(err, "at least one start"));
-  sim_engine_free(e);
-  ans_circuit_free(&c);
-  pauli_sum_free(&H);
+  free_problem(e, &c, &H);
 }
 
 /* A program without parameters is evaluated once and reported as such. */
@@ -426,9 +430,7 @@ static void test_no_parameters(void **state) {
   assert_int_equal(res.start[0].stop, SIM_STOP_NO_PARAMS);
   assert_string_equal(sim_stop_name(res.start[0].stop), "no parameters");
   sim_opt_result_free(&res);
-  sim_engine_free(e);
-  ans_circuit_free(&c);
-  pauli_sum_free(&H);
+  free_problem(e, &c, &H);
 }
 
 /* 40 qubits would need 32 TiB: refused before anything large is allocated
@@ -517,9 +519,7 @@ static void test_initial_values(void **state) {
     assert_true(res.start[k].theta0[0] != 2.0);
   }
   sim_opt_result_free(&res);
-  sim_engine_free(e);
-  ans_circuit_free(&c);
-  pauli_sum_free(&H);
+  free_problem(e, &c, &H);
 }
 
 /* Candidate gradients equal the central difference of the program with the
@@ -571,8 +571,8 @@ static void test_candidate_gradients(void **state) {
       ans_circuit_push(&ext, ans_circuit_word(&ext, pauli_sum_x(&words, k), pauli_sum_z(&words, k)), p1,
                        creal(words.c[k]), gg);
     sim_engine *e2 = sim_engine_new(&ext, &H, err, sizeof err);
-    double tp[2] = {0.3, 1e-5}, tm[2] = {0.3, -1e-5};
-    double fd = (sim_energy(e2, tp) - sim_energy(e2, tm)) / 2e-5;
+    const double at[2] = {0.3, 0};
+    double fd = central_difference(e2, at, 2, 1, 1e-5);
     assert_true(fabs(fd - g[c]) < 1e-7);
     assert_true(fabs(g[c]) > 1e-3); /* the check is not vacuous */
     sim_engine_free(e2);
@@ -607,9 +607,8 @@ static void test_progress_hook(void **state) {
   ans_circuit c;
   pauli_sum H;
   double ground;
-  one_qubit_problem(&c, &H, &ground);
   char err[300];
-  sim_engine *e = sim_engine_new(&c, &H, err, sizeof err);
+  sim_engine *e = one_qubit_engine(&c, &H, &ground, err, sizeof err);
   progress_log log = {0, {0, 0, 0}, 0, 0};
   sim_opt_options o;
   sim_opt_options_init(&o);
@@ -621,9 +620,7 @@ static void test_progress_hook(void **state) {
   assert_int_equal(log.calls, res.evals);
   for (int k = 0; k < 3; k++) assert_int_equal(log.last_eval[k], res.start[k].evals);
   sim_opt_result_free(&res);
-  sim_engine_free(e);
-  ans_circuit_free(&c);
-  pauli_sum_free(&H);
+  free_problem(e, &c, &H);
 }
 
 int main(void) {
