@@ -56,14 +56,6 @@ static int show_generators(const ir_recipe *r, diag_ctx *d, const show_opts *o) 
  * exactly (json.h). */
 static cJSON *num(double x) { return json_number(x); }
 
-static cJSON *coeff_json(double complex c) {
-  if (cimag(c) == 0) return num(creal(c));
-  cJSON *a = cJSON_CreateArray();
-  cJSON_AddItemToArray(a, num(creal(c)));
-  cJSON_AddItemToArray(a, num(cimag(c)));
-  return a;
-}
-
 static char *coeff_text(double complex c) {
   char re[32], im[32];
   util_fmt_double(re, creal(c));
@@ -127,26 +119,13 @@ static cJSON *point_json(const ir_recipe *r, const pipe_point *p) {
   char *ref = bits_text(p->nqubits, p->ref);
   cJSON_AddStringToObject(o, "reference", ref);
   free(ref);
-  const pauli_sum *h = &p->ham;
-  double complex constant = 0;
-  cJSON *terms = cJSON_CreateArray();
-  int nterms = 0;
-  for (size_t k = 0; k < h->len; k++) {
-    const uint64_t *x = pauli_sum_x(h, k), *z = pauli_sum_z(h, k);
-    if (pauli_word_is_identity(h->nw, x, z)) {
-      constant += h->c[k];
-      continue;
-    }
-    cJSON *term = cJSON_CreateObject();
-    char *w = pauli_word_str(h->n, x, z);
-    cJSON_AddStringToObject(term, "pauli", w);
-    free(w);
-    cJSON_AddItemToObject(term, "coeff", coeff_json(h->c[k]));
-    cJSON_AddItemToArray(terms, term);
-    nterms++;
-  }
-  cJSON_AddNumberToObject(o, "nterms", nterms);
-  cJSON_AddItemToObject(o, "constant", coeff_json(constant));
+  /* the Hamiltonian's constant and terms as json_pauli_sum writes them */
+  cJSON *sum = json_pauli_sum(&p->ham);
+  cJSON *constant = cJSON_DetachItemFromObjectCaseSensitive(sum, "constant");
+  cJSON *terms = cJSON_DetachItemFromObjectCaseSensitive(sum, "terms");
+  cJSON_Delete(sum);
+  cJSON_AddNumberToObject(o, "nterms", cJSON_GetArraySize(terms));
+  cJSON_AddItemToObject(o, "constant", constant);
   cJSON_AddItemToObject(o, "terms", terms);
   return o;
 }
