@@ -49,6 +49,13 @@ static void compare(front_changes *c, const char *section, const char *a, const 
   front_changes_add(c, !a ? FRONT_ADDED : !b ? FRONT_REMOVED : FRONT_CHANGED, section, NULL, a, b);
 }
 
+/* compare() for two texts of the caller's, which it frees. */
+static void compare_free(front_changes *c, const char *section, char *a, char *b) {
+  compare(c, section, a, b);
+  free(a);
+  free(b);
+}
+
 static char *num(double x) {
   char b[32];
   return xstrdup(util_fmt_double(b, x));
@@ -128,14 +135,14 @@ static char *basis_text(const ir_recipe *r) {
   return r->basis_name ? xstrdup(r->basis_name) : NULL;
 }
 
+static char *molecule_text(const ir_recipe *r) {
+  return r->problem == IR_PROBLEM_ATOMS ? formula(r) : xasprintf("integrals %s", r->integrals_file);
+}
+
 static void diff_molecule(const ir_recipe *a, const ir_recipe *b, front_changes *out) {
   char *s1, *s2;
   if (a->problem != b->problem) {
-    s1 = a->problem == IR_PROBLEM_ATOMS ? formula(a) : xasprintf("integrals %s", a->integrals_file);
-    s2 = b->problem == IR_PROBLEM_ATOMS ? formula(b) : xasprintf("integrals %s", b->integrals_file);
-    compare(out, "molecule", s1, s2);
-    free(s1);
-    free(s2);
+    compare_free(out, "molecule", molecule_text(a), molecule_text(b));
   } else if (a->problem == IR_PROBLEM_INTEGRALS) {
     compare(out, "integrals", a->integrals_file, b->integrals_file);
   } else {
@@ -145,30 +152,14 @@ static void diff_molecule(const ir_recipe *a, const ir_recipe *b, front_changes 
     int same_atoms = strcmp(s1, s2) == 0;
     free(s1);
     free(s2);
-    s1 = scan_text(a);
-    s2 = scan_text(b);
-    compare(out, "scan", s1, s2);
-    free(s1);
-    free(s2);
+    compare_free(out, "scan", scan_text(a), scan_text(b));
     if (same_atoms) diff_geometry(a, b, out);
   }
   if (a->problem == IR_PROBLEM_ATOMS && b->problem == IR_PROBLEM_ATOMS) {
-    s1 = num(a->charge);
-    s2 = num(b->charge);
-    compare(out, "charge", s1, s2);
-    free(s1);
-    free(s2);
+    compare_free(out, "charge", num(a->charge), num(b->charge));
   }
-  s1 = num(a->multiplicity);
-  s2 = num(b->multiplicity);
-  compare(out, "multiplicity", s1, s2);
-  free(s1);
-  free(s2);
-  s1 = basis_text(a);
-  s2 = basis_text(b);
-  compare(out, "basis", s1, s2);
-  free(s1);
-  free(s2);
+  compare_free(out, "multiplicity", num(a->multiplicity), num(b->multiplicity));
+  compare_free(out, "basis", basis_text(a), basis_text(b));
 }
 
 /* ---- orbital space ------------------------------------------------------- */
@@ -308,10 +299,7 @@ static void diff_optimizer(const ir_optimize *a, const ir_optimize *b, front_cha
   util_fmt_double(x, a->tolerance);
   util_fmt_double(y, b->tolerance);
   if (strcmp(x, y)) {
-    char *s1 = xasprintf("tolerance %s", x), *s2 = xasprintf("tolerance %s", y);
-    compare(out, "optimizer", s1, s2);
-    free(s1);
-    free(s2);
+    compare_free(out, "optimizer", xasprintf("tolerance %s", x), xasprintf("tolerance %s", y));
   }
   struct {
     const char *w;
@@ -338,55 +326,33 @@ static void diff_emits(const ir_recipe *a, const ir_recipe *b, front_changes *ou
       if (strcmp(b->emits[j].path, e->path) == 0) k = j;
     char *s1 = xasprintf("%s %s", ir_emit_name(e->format), e->path);
     char *s2 = k >= 0 ? xasprintf("%s %s", ir_emit_name(b->emits[k].format), b->emits[k].path) : NULL;
-    compare(out, "emit", s1, s2);
-    free(s1);
-    free(s2);
+    compare_free(out, "emit", s1, s2);
   }
   for (int j = 0; j < b->nemits; j++) {
     int found = 0;
     for (int i = 0; i < a->nemits && !found; i++) found = strcmp(a->emits[i].path, b->emits[j].path) == 0;
     if (found) continue;
-    char *s2 = xasprintf("%s %s", ir_emit_name(b->emits[j].format), b->emits[j].path);
-    compare(out, "emit", NULL, s2);
-    free(s2);
+    compare_free(out, "emit", NULL, xasprintf("%s %s", ir_emit_name(b->emits[j].format), b->emits[j].path));
   }
+}
+
+static char *reference_text(const ir_reference *r) {
+  return r->kind == IR_REF_BITS ? xasprintf("bits %s", r->bits) : xstrdup(ir_reference_name(r->kind));
 }
 
 void front_diff(const ir_recipe *a, const ir_recipe *b, front_changes *out) {
   diff_molecule(a, b, out);
-  char *s1 = space_text(a), *s2 = space_text(b);
-  compare(out, "orbital space", s1, s2);
-  free(s1);
-  free(s2);
-  s1 = xasprintf("%s%s", ir_encoding_name(a->encoding), a->taper ? " taper" : "");
-  s2 = xasprintf("%s%s", ir_encoding_name(b->encoding), b->taper ? " taper" : "");
-  compare(out, "encoding", s1, s2);
-  free(s1);
-  free(s2);
-  s1 = a->reference.kind == IR_REF_BITS ? xasprintf("bits %s", a->reference.bits) : xstrdup(ir_reference_name(a->reference.kind));
-  s2 = b->reference.kind == IR_REF_BITS ? xasprintf("bits %s", b->reference.bits) : xstrdup(ir_reference_name(b->reference.kind));
-  compare(out, "reference", s1, s2);
-  free(s1);
-  free(s2);
+  compare_free(out, "orbital space", space_text(a), space_text(b));
+  compare_free(out, "encoding", xasprintf("%s%s", ir_encoding_name(a->encoding), a->taper ? " taper" : ""),
+               xasprintf("%s%s", ir_encoding_name(b->encoding), b->taper ? " taper" : ""));
+  compare_free(out, "reference", reference_text(&a->reference), reference_text(&b->reference));
   for (int k = 0; k < IR_SYM_COUNT; k++) {
-    s1 = keep_text(&a->keep[k], (ir_symmetry)k);
-    s2 = keep_text(&b->keep[k], (ir_symmetry)k);
-    compare(out, "keep", s1, s2);
-    free(s1);
-    free(s2);
+    compare_free(out, "keep", keep_text(&a->keep[k], (ir_symmetry)k), keep_text(&b->keep[k], (ir_symmetry)k));
   }
   diff_pool(a, b, out);
-  s1 = choose_text(&a->choose);
-  s2 = choose_text(&b->choose);
-  compare(out, "selection", s1, s2);
-  free(s1);
-  free(s2);
+  compare_free(out, "selection", choose_text(&a->choose), choose_text(&b->choose));
   compare(out, "order", order_text(a->order), order_text(b->order));
-  s1 = num(a->trotter);
-  s2 = num(b->trotter);
-  compare(out, "trotter", s1, s2);
-  free(s1);
-  free(s2);
+  compare_free(out, "trotter", num(a->trotter), num(b->trotter));
   diff_optimizer(&a->optimize, &b->optimize, out);
   diff_emits(a, b, out);
 }
