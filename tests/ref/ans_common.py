@@ -16,6 +16,11 @@ import sys
 
 import numpy as np
 
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+# the encodings' GF(2) matrices, the basis permutation they make, and Pauli
+# words (tests/ref/ref_common.py)
+from ref_common import dense, encoding_matrix, parse_word, permutation  # noqa: E402,F401
+
 sys.path.insert(0, "/usr/lib/x86_64-linux-gnu")
 
 
@@ -161,49 +166,9 @@ def qubit_excitation(nmodes, frm, to):
     return Q
 
 
-# ---- encodings as GF(2) matrices: b = A n
-
-def encoding_matrix(name, n):
-    if name == "jordan-wigner":
-        return np.eye(n, dtype=int)
-    if name == "parity":
-        return np.tril(np.ones((n, n), dtype=int))
-    # Bravyi-Kitaev: B_1 = [1], B_2m = [[B_m, 0], [A_m, B_m]], A_m zero but a last row of ones
-    size = 1
-    B = np.ones((1, 1), dtype=int)
-    while size < n:
-        A = np.zeros((size, size), dtype=int)
-        A[-1, :] = 1
-        B = np.block([[B, np.zeros((size, size), dtype=int)], [A, B]])
-        size *= 2
-    return B[:n, :n]
-
-
-def permutation(A):
-    """P with P e_n = e_{A n}: an occupation-basis operator O becomes P O P^T."""
-    n = A.shape[0]
-    dim = 1 << n
-    P = np.zeros((dim, dim))
-    for occ in range(dim):
-        v = np.array([(occ >> j) & 1 for j in range(n)])
-        b = (A @ v) % 2
-        P[int(sum(int(b[q]) << q for q in range(n))), occ] = 1.0
-    return P
-
-
 def pauli_matrix(text, n):
     """Dense matrix of a sparse Pauli word ("X0 Y1 Z5"), qubit q = bit q."""
-    I2 = np.eye(2)
-    mats = {"X": np.array([[0, 1], [1, 0]], dtype=complex), "Y": np.array([[0, -1j], [1j, 0]]),
-            "Z": np.array([[1, 0], [0, -1]], dtype=complex)}
-    letters = {}
-    if text.strip() != "I":
-        for tok in text.split():
-            letters[int(tok[1:])] = tok[0]
-    M = np.ones((1, 1), dtype=complex)
-    for q in reversed(range(n)):  # kron(high, ..., low): qubit 0 is the lowest bit
-        M = np.kron(M, mats[letters[q]] if q in letters else I2)
-    return M
+    return dense(n, parse_word(text))
 
 
 def product_state(theta, phi):

@@ -32,6 +32,7 @@ import numpy as np
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 import gates_sim as gs  # noqa: E402
+from ref_common import dense, parse_word  # noqa: E402
 
 CAIRN = os.environ.get("CAIRN", "./cairn")
 FAILS = []
@@ -75,8 +76,7 @@ def program_state(prog, theta):
     n = prog["qubits"]
     p = gs.Program(n, sum(1 << q for q, b in enumerate(prog["init"]) if b == "1"))
     for r in prog["rotations"]:
-        w = {} if r["word"] == "I" else {int(x[1:]): x[0] for x in r["word"].split()}
-        p.rots.append((w, r["param"], r["mult"], r["gen"]))
+        p.rots.append((parse_word(r["word"]), r["param"], r["mult"], r["gen"]))
     return gs.reference_state(p, theta, use_expm=n <= 8)
 
 
@@ -89,9 +89,8 @@ def hamiltonian(path):
     c = h["constant"]
     H = (complex(*c) if isinstance(c, list) else c) * np.eye(1 << n, dtype=complex)
     for t in h["terms"]:
-        w = {int(x[1:]): x[0] for x in t["pauli"].split()}
         k = t["coeff"]
-        H += (complex(*k) if isinstance(k, list) else k) * gs.dense(n, w)
+        H += (complex(*k) if isinstance(k, list) else k) * dense(n, parse_word(t["pauli"]))
     return n, H
 
 

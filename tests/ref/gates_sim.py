@@ -43,6 +43,11 @@ import tempfile
 import numpy as np
 import scipy.linalg
 
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+# Pauli words as {qubit: letter} and the encodings' basis permutation
+# (tests/ref/ref_common.py)
+from ref_common import PAULI, dense, permutation, text  # noqa: E402
+
 BUILD = os.environ.get("CAIRN_BUILDDIR", ".")
 DRIVER = os.path.join(BUILD, "tests", "ref", "gates_driver")
 TOL = 1e-10
@@ -56,26 +61,6 @@ def check(cond, what):
 
 
 # ---------------------------------------------------------------- Pauli words
-
-PAULI = {
-    "I": np.eye(2, dtype=complex),
-    "X": np.array([[0, 1], [1, 0]], dtype=complex),
-    "Y": np.array([[0, -1j], [1j, 0]], dtype=complex),
-    "Z": np.array([[1, 0], [0, -1]], dtype=complex),
-}
-
-
-def dense(n, word):
-    """Matrix of a word {qubit: letter}; qubit q is bit q of the basis index."""
-    m = np.eye(1, dtype=complex)
-    for q in range(n - 1, -1, -1):
-        m = np.kron(m, PAULI[word.get(q, "I")])
-    return m
-
-
-def text(word):
-    return " ".join(f"{word[q]}{q}" for q in sorted(word)) or "I"
-
 
 def weight(word):
     return len(word)
@@ -160,15 +145,6 @@ def encode_bits(A, occ):
         if sum(A[j, k] * ((occ >> k) & 1) for k in range(n)) % 2:
             b |= 1 << j
     return b
-
-
-def permutation(A):
-    n = len(A)
-    N = 1 << n
-    P = np.zeros((N, N))
-    for occ in range(N):
-        P[encode_bits(A, occ), occ] = 1
-    return P
 
 
 # ----------------------------------------------------------- programs (JSON)

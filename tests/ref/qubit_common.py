@@ -1,9 +1,9 @@
 """qubit_common.py — shared pieces of the qubit-layer reference checks.
 
 Everything here is written independently of cairn's C code: the FCIDUMP
-parser, the encoding matrices (Bravyi-Kitaev by the recursive construction of
-Seeley, Richard and Love 2012), the Jordan-Wigner second quantization and the
-Pauli-word matrices.  cairn's side comes only through the check driver
+parser, the encoding matrices (tests/ref/ref_common.py; Bravyi-Kitaev by the
+recursive construction of Seeley, Richard and Love 2012), the Jordan-Wigner
+second quantization and the Pauli-word matrices.  cairn's side comes only through the check driver
 (tests/ref/qubit_driver), which prints its Pauli sums as JSON.
 """
 import json
@@ -14,6 +14,10 @@ import tempfile
 
 import numpy as np
 import scipy.sparse as sp
+
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+# the encodings' GF(2) matrices (tests/ref/ref_common.py)
+from ref_common import encoding_matrix  # noqa: E402
 
 ENCODINGS = ["jordan-wigner", "bravyi-kitaev", "parity"]
 
@@ -142,26 +146,6 @@ def random_integrals(norb, seed):
 
 
 # ---- encodings (independent implementations) ----
-
-def encoding_matrix(name, n):
-    """GF(2) matrix A with b = A n for occupation vector n (qubit 0 first)."""
-    if name == "jordan-wigner":
-        return np.eye(n, dtype=np.int64)
-    if name == "parity":
-        return np.tril(np.ones((n, n), dtype=np.int64))
-    if name == "bravyi-kitaev":
-        # Seeley, Richard, Love 2012: beta_1 = [1], beta_2m = [[beta_m, 0], [A_m, beta_m]]
-        # with A_m zero but for its last row of ones (qubit 2m-1 holds the parity of
-        # all 2m modes); for other n the leading n x n block.
-        b = np.ones((1, 1), dtype=np.int64)
-        while b.shape[0] < n:
-            m = b.shape[0]
-            am = np.zeros((m, m), dtype=np.int64)
-            am[m - 1, :] = 1
-            b = np.block([[b, np.zeros((m, m), dtype=np.int64)], [am, b]])
-        return b[:n, :n].copy()
-    raise ValueError(name)
-
 
 def encode_states(name, n, occ):
     """Encoded basis-state indices of occupation indices occ (numpy int array)."""

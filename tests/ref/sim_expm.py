@@ -7,9 +7,9 @@ Hermitian Pauli sums and random programs on 1 to 10 qubits.
 Sources: numpy and scipy run live (reference programs of the project); the
 Pauli matrices and the qubit order (qubit q is bit q of the basis index) are
 common practice / DEVELOPERS.md.  Tolerance 1e-10 on energies and amplitudes;
-programs of Jordan-Wigner excitations (written out here, independently) check
-the engine's fused steps the same way.  The gradient is checked against the
-dense derivative
+programs of Jordan-Wigner excitations (written out independently in
+tests/ref/ref_common.py) check the engine's fused steps the same way.  The
+gradient is checked against the dense derivative
 dE/dtheta_p = 2 Re <psi|H|d psi/d theta_p> to 1e-9.
 
 Measured here: Debian's scipy 1.10.1 scipy.linalg.expm returns wrong
@@ -28,24 +28,10 @@ import tempfile
 import numpy as np
 import scipy.linalg
 
-PAULI = {
-    "I": np.eye(2, dtype=complex),
-    "X": np.array([[0, 1], [1, 0]], dtype=complex),
-    "Y": np.array([[0, -1j], [1j, 0]], dtype=complex),
-    "Z": np.array([[1, 0], [0, -1]], dtype=complex),
-}
-
-
-def dense(n, letters):
-    """Matrix of a word {qubit: letter}; qubit 0 is the least significant bit."""
-    m = np.eye(1, dtype=complex)
-    for q in range(n - 1, -1, -1):
-        m = np.kron(m, PAULI[letters.get(q, "I")])
-    return m
-
-
-def text(letters):
-    return " ".join(f"{letters[q]}{q}" for q in sorted(letters)) or "I"
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+# Pauli words and the Jordan-Wigner excitations, written out independently of
+# cairn (tests/ref/ref_common.py): words as {qubit: letter}.
+from ref_common import dense, excitation_words, text  # noqa: E402
 
 
 def random_word(rng, n):
@@ -110,61 +96,6 @@ def expm_checked(a):
     if np.abs(u - v).max() > 1e-12:
         raise RuntimeError(f"reference exponentials disagree: {np.abs(u - v).max():.2e}")
     return u
-
-
-# Jordan-Wigner excitations written out here, independently of cairn: words
-# as {qubit: letter} with complex coefficients; a_p = Z_0..Z_{p-1}(X_p + iY_p)/2.
-MUL = {("X", "Y"): (1j, "Z"), ("Y", "Z"): (1j, "X"), ("Z", "X"): (1j, "Y"),
-       ("Y", "X"): (-1j, "Z"), ("Z", "Y"): (-1j, "X"), ("X", "Z"): (-1j, "Y")}
-
-
-def word_mul(a, b):
-    ph, out = 1, dict(a)
-    for q, l in b.items():
-        if q not in out:
-            out[q] = l
-        elif out[q] == l:
-            del out[q]
-        else:
-            f, r = MUL[(out[q], l)]
-            ph *= f
-            out[q] = r
-    return ph, out
-
-
-def op_mul(s, t):
-    acc = {}
-    for wa, ca in s.items():
-        for wb, cb in t.items():
-            ph, w = word_mul(dict(wa), dict(wb))
-            key = tuple(sorted(w.items()))
-            acc[key] = acc.get(key, 0) + ca * cb * ph
-    return acc
-
-
-def ladder(p, dagger):
-    z = [(q, "Z") for q in range(p)]
-    return {tuple(z + [(p, "X")]): 0.5, tuple(z + [(p, "Y")]): (-0.5j if dagger else 0.5j)}
-
-
-def excitation_words(frm, to):
-    """G = 2i (T - T^+), T = a_to^+ ... a_from ... as {word: real multiplier}."""
-    t = {(): 1}
-    for a in to:
-        t = op_mul(t, ladder(a, True))
-    for i in reversed(frm):
-        t = op_mul(t, ladder(i, False))
-    g = {}
-    for w, c in t.items():
-        g[w] = g.get(w, 0) + 2j * c
-    adj = {(): 1}
-    for i in frm:
-        adj = op_mul(adj, ladder(i, True))
-    for a in reversed(to):
-        adj = op_mul(adj, ladder(a, False))
-    for w, c in adj.items():
-        g[w] = g.get(w, 0) - 2j * c
-    return {w: c.real for w, c in g.items() if abs(c) > 1e-12}
 
 
 def excitation_problem(rng, n, nelec, nterms):

@@ -9,8 +9,9 @@ together against an outside reference.
 Sources: psi4 run live (SCF with scf_type pk, e/d_convergence 1e-10,
 symmetry c1, no_reorient, no_com; FCI energy; the AO integrals transformed to
 MO integrals with numpy here).  The qubit Hamiltonian and the excitation
-words are built in this file by the Jordan-Wigner transformation (1928),
-independently of cairn's qubit and ansatz modules.
+words are built by the Jordan-Wigner transformation (1928), with the ladder
+algebra of tests/ref/ref_common.py, independently of cairn's qubit and
+ansatz modules.
 """
 import json
 import os
@@ -20,6 +21,10 @@ import tempfile
 
 import numpy as np
 
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+# the Jordan-Wigner ladder-operator algebra (tests/ref/ref_common.py)
+from ref_common import excitation_words, product, text  # noqa: E402
+
 sys.path.insert(0, "/usr/lib/x86_64-linux-gnu")
 try:
     import psi4
@@ -27,53 +32,10 @@ except ImportError:
     print("psi4 is not importable from /usr/bin/python3: skipped")
     sys.exit(77)
 
-MUL = {("X", "Y"): (1j, "Z"), ("Y", "Z"): (1j, "X"), ("Z", "X"): (1j, "Y"),
-       ("Y", "X"): (-1j, "Z"), ("Z", "Y"): (-1j, "X"), ("X", "Z"): (-1j, "Y")}
-
-
-def word_mul(a, b):
-    ph, out = 1, dict(a)
-    for q, l in b:
-        if q not in out:
-            out[q] = l
-        elif out[q] == l:
-            del out[q]
-        else:
-            f, r = MUL[(out[q], l)]
-            ph *= f
-            out[q] = r
-    return ph, tuple(sorted(out.items()))
-
-
-def op_mul(s, t):
-    acc = {}
-    for wa, ca in s.items():
-        for wb, cb in t.items():
-            ph, w = word_mul(wa, wb)
-            acc[w] = acc.get(w, 0) + ca * cb * ph
-    return acc
-
-
-def ladder(p, dagger):
-    """Jordan-Wigner a_p (a_p^+ with dagger) = Z_0..Z_{p-1} (X_p +- i Y_p)/2."""
-    z = tuple((q, "Z") for q in range(p))
-    return {z + ((p, "X"),): 0.5, z + ((p, "Y"),): (-0.5j if dagger else 0.5j)}
-
-
-def product(ops):
-    out = {(): 1}
-    for p, d in ops:
-        out = op_mul(out, ladder(p, d))
-    return out
-
 
 def add(acc, s, c):
     for w, v in s.items():
         acc[w] = acc.get(w, 0) + c * v
-
-
-def text(w):
-    return " ".join(f"{l}{q}" for q, l in w) or "I"
 
 
 def h2_problem(r):
@@ -115,20 +77,8 @@ def h2_problem(r):
                     if abs(v) > 1e-14:
                         add(acc, product([(p, 1), (rr, 1), (s, 0), (q, 0)]), 0.5 * v)
     const = acc.pop((), 0).real
-    terms = [{"pauli": text(w), "coeff": c.real} for w, c in sorted(acc.items()) if abs(c) > 1e-14]
+    terms = [{"pauli": text(dict(w)), "coeff": c.real} for w, c in sorted(acc.items()) if abs(c) > 1e-14]
     return e_scf, e_fci, {"qubits": nso, "constant": const, "terms": terms}
-
-
-def excitation_words(frm, to):
-    """G = 2i (T - T^+), T = a_to^+ ... a_from ... (reverse order)."""
-    t = product([(a, 1) for a in to] + [(i, 0) for i in reversed(frm)])
-    td = product([(i, 1) for i in frm] + [(a, 0) for a in reversed(to)])
-    g = {}
-    for w, c in t.items():
-        g[w] = g.get(w, 0) + 2j * c
-    for w, c in td.items():
-        g[w] = g.get(w, 0) - 2j * c
-    return {w: c.real for w, c in g.items() if abs(c) > 1e-12}
 
 
 R_SO = 1.4 * 0.529177210903  # 1.4 bohr in angstrom (CODATA 2018 bohr)
@@ -141,7 +91,7 @@ def main():
     for k, (f, t) in enumerate(excitations):
         gens.append({"kind": "double" if len(f) == 2 else "single", "text": f"{f} -> {t}", "rule": -1, "line": 0})
         for w, m in sorted(excitation_words(f, t).items()):
-            rots.append({"word": text(w), "param": k, "mult": m, "gen": k})
+            rots.append({"word": text(dict(w)), "param": k, "mult": m, "gen": k})
     failures = 0
     with tempfile.TemporaryDirectory() as tmp:
         for r in (0.5, R_SO, 2.0):

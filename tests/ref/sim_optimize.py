@@ -19,41 +19,31 @@ import tempfile
 
 import numpy as np
 
-PAULI = {
-    "I": np.eye(2, dtype=complex),
-    "X": np.array([[0, 1], [1, 0]], dtype=complex),
-    "Y": np.array([[0, -1j], [1j, 0]], dtype=complex),
-    "Z": np.array([[1, 0], [0, -1]], dtype=complex),
-}
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+from ref_common import dense, text  # noqa: E402  (tests/ref/ref_common.py)
 
 
-def dense(n, word):
-    """word: dense text, character q = qubit q (the least significant bit)."""
-    m = np.eye(1, dtype=complex)
-    for q in range(n - 1, -1, -1):
-        m = np.kron(m, PAULI[word[q]])
-    return m
+def letters(word):
+    """{qubit: letter} of a dense word (character q = qubit q)."""
+    return {q: l for q, l in enumerate(word) if l != "I"}
 
-
-def sparse_text(word):
-    return " ".join(f"{l}{q}" for q, l in enumerate(word) if l != "I") or "I"
 
 
 def job(n, terms, rotations, method, seed):
     ham = {"qubits": n, "constant": 0.0, "terms": []}
     mat = np.zeros((2**n, 2**n), dtype=complex)
     for w, c in terms:
-        mat += c * dense(n, w)
+        mat += c * dense(n, letters(w))
         if set(w) == {"I"}:
             ham["constant"] += c
         else:
-            ham["terms"].append({"pauli": sparse_text(w), "coeff": c})
+            ham["terms"].append({"pauli": text(letters(w)), "coeff": c})
     circ = {
         "qubits": n,
         "init": "0" * n,
         "params": [0] * len(rotations),
         "generators": [{"kind": "word", "text": "test", "rule": -1, "line": 0}],
-        "rotations": [{"word": sparse_text(w), "param": k, "mult": 1.0, "gen": 0} for k, w in enumerate(rotations)],
+        "rotations": [{"word": text(letters(w)), "param": k, "mult": 1.0, "gen": 0} for k, w in enumerate(rotations)],
     }
     opt = {"method": method, "tolerance": 1e-12, "max_evals": 3000, "random": 4, "seed": seed}
     return {"hamiltonian": ham, "circuit": circ, "optimize": opt}, np.linalg.eigvalsh(mat)[0]

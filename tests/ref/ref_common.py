@@ -1,0 +1,134 @@
+"""ref_common.py — helpers shared by the reference checks in tests/ref.
+
+Written independently of cairn's C code, with numpy: Pauli words and their
+dense matrices, the Jordan-Wigner algebra of ladder operators on words
+(Jordan & Wigner 1928; a_p = Z_0 ... Z_{p-1} (X_p + i Y_p) / 2, common
+practice), and the GF(2) matrices of the encodings (Bravyi-Kitaev by the
+recursive construction of Seeley, Richard and Love, J. Chem. Phys. 137,
+224109, 2012).  Qubit q is bit q of a basis-state index (DEVELOPERS.md).
+Nothing here checks anything: each test keeps its own checks, tolerances
+and sources.
+"""
+import numpy as np
+
+# ---- Pauli words as {qubit: letter} -----------------------------------------
+
+PAULI = {
+    "I": np.eye(2, dtype=complex),
+    "X": np.array([[0, 1], [1, 0]], dtype=complex),
+    "Y": np.array([[0, -1j], [1j, 0]], dtype=complex),
+    "Z": np.array([[1, 0], [0, -1]], dtype=complex),
+}
+
+
+def dense(n, word):
+    """Matrix of a word {qubit: letter} on n qubits; qubit q is bit q of the
+    basis index (the Kronecker product runs from the top qubit down)."""
+    m = np.eye(1, dtype=complex)
+    for q in range(n - 1, -1, -1):
+        m = np.kron(m, PAULI[word.get(q, "I")])
+    return m
+
+
+def text(word):
+    """Sparse text of a word: "X0 Y1 Z5", qubits increasing; "I" when empty."""
+    return " ".join(f"{word[q]}{q}" for q in sorted(word)) or "I"
+
+
+def parse_word(s):
+    """{qubit: letter} of a sparse text ("X0 Y1 Z5", or "I")."""
+    if s.strip() == "I":
+        return {}
+    return {int(tok[1:]): tok[0] for tok in s.split()}
+
+
+# ---- Jordan-Wigner algebra on words as sorted ((qubit, letter), ...) tuples ----
+
+MUL = {("X", "Y"): (1j, "Z"), ("Y", "Z"): (1j, "X"), ("Z", "X"): (1j, "Y"),
+       ("Y", "X"): (-1j, "Z"), ("Z", "Y"): (-1j, "X"), ("X", "Z"): (-1j, "Y")}
+
+
+def word_mul(a, b):
+    """Product of two words: (phase, word) with a b = phase * word."""
+    ph, out = 1, dict(a)
+    for q, l in b:
+        if q not in out:
+            out[q] = l
+        elif out[q] == l:
+            del out[q]
+        else:
+            f, r = MUL[(out[q], l)]
+            ph *= f
+            out[q] = r
+    return ph, tuple(sorted(out.items()))
+
+
+def op_mul(s, t):
+    """Product of two operators {word: coefficient}."""
+    acc = {}
+    for wa, ca in s.items():
+        for wb, cb in t.items():
+            ph, w = word_mul(wa, wb)
+            acc[w] = acc.get(w, 0) + ca * cb * ph
+    return acc
+
+
+def ladder(p, dagger):
+    """Jordan-Wigner a_p (a_p^+ with dagger) = Z_0..Z_{p-1} (X_p +- i Y_p)/2."""
+    z = tuple((q, "Z") for q in range(p))
+    return {z + ((p, "X"),): 0.5, z + ((p, "Y"),): (-0.5j if dagger else 0.5j)}
+
+
+def product(ops):
+    """The operator product of ladders [(mode, dagger), ...] as written."""
+    out = {(): 1}
+    for p, d in ops:
+        out = op_mul(out, ladder(p, d))
+    return out
+
+
+def excitation_words(frm, to):
+    """G = 2i (T - T^+), T = a_to^+ ... a_from ... (from in reverse order), as
+    {word: real multiplier}."""
+    t = product([(a, 1) for a in to] + [(i, 0) for i in reversed(frm)])
+    td = product([(i, 1) for i in frm] + [(a, 0) for a in reversed(to)])
+    g = {}
+    for w, c in t.items():
+        g[w] = g.get(w, 0) + 2j * c
+    for w, c in td.items():
+        g[w] = g.get(w, 0) - 2j * c
+    return {w: c.real for w, c in g.items() if abs(c) > 1e-12}
+
+
+# ---- encodings as GF(2) matrices: b = A n ------------------------------------
+
+def encoding_matrix(name, n):
+    """GF(2) matrix A with b = A n for occupation vector n (qubit 0 first)."""
+    if name == "jordan-wigner":
+        return np.eye(n, dtype=np.int64)
+    if name == "parity":
+        return np.tril(np.ones((n, n), dtype=np.int64))
+    if name == "bravyi-kitaev":
+        # beta_1 = [1], beta_2m = [[beta_m, 0], [A_m, beta_m]] with A_m zero but
+        # for its last row of ones (qubit 2m-1 holds the parity of all 2m
+        # modes); for other n the leading n x n block.
+        b = np.ones((1, 1), dtype=np.int64)
+        while b.shape[0] < n:
+            m = b.shape[0]
+            am = np.zeros((m, m), dtype=np.int64)
+            am[m - 1, :] = 1
+            b = np.block([[b, np.zeros((m, m), dtype=np.int64)], [am, b]])
+        return b[:n, :n].copy()
+    raise ValueError(name)
+
+
+def permutation(A):
+    """P with P e_n = e_{A n}: an occupation-basis operator O becomes P O P^T."""
+    n = A.shape[0]
+    dim = 1 << n
+    P = np.zeros((dim, dim))
+    for occ in range(dim):
+        v = np.array([(occ >> j) & 1 for j in range(n)])
+        b = (A @ v) % 2
+        P[int(sum(int(b[q]) << q for q in range(n))), occ] = 1.0
+    return P
