@@ -17,9 +17,9 @@ import sys
 import numpy as np
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
-# the encodings' GF(2) matrices, the basis permutation they make, and Pauli
-# words (tests/ref/ref_common.py)
-from ref_common import dense, encoding_matrix, parse_word, permutation  # noqa: E402,F401
+# the FCIDUMP reader, the encodings' GF(2) matrices, the basis permutation
+# they make, and Pauli words (tests/ref/ref_common.py)
+from ref_common import dense, encoding_matrix, parse_word, permutation, read_fcidump  # noqa: E402,F401
 
 sys.path.insert(0, "/usr/lib/x86_64-linux-gnu")
 
@@ -39,45 +39,6 @@ def psi4_fcidump(geometry, path, basis="sto-3g", charge=0, mult=1):
     psi4.fcidump(wfn, fname=path)
     psi4.core.clean()
     return e
-
-
-def read_fcidump(path):
-    """(norb, nelec, ms2, h1, h2 chemists' (pq|rs), constant) — our own parser of
-    the format (Knowles & Handy, Comput. Phys. Commun. 54, 75 (1989))."""
-    text = open(path).read()
-    up = text.upper()
-    end = up.find("&END")
-    cut = end + 4 if end >= 0 else up.find("/") + 1
-    head, body = text[:cut], text[cut:]
-
-    def field(name):
-        i = head.upper().find(name + "=")
-        j = i + len(name) + 1
-        k = j
-        while k < len(head) and (head[k].isdigit() or head[k] == "-"):
-            k += 1
-        return int(head[j:k])
-
-    norb, nelec = field("NORB"), field("NELEC")
-    ms2 = field("MS2") if "MS2=" in head.upper() else 0
-    h1 = np.zeros((norb, norb))
-    h2 = np.zeros((norb,) * 4)
-    const = 0.0
-    for line in body.splitlines():
-        t = line.split()
-        if len(t) != 5:
-            continue
-        v = float(t[0].replace("D", "E").replace("d", "e"))
-        i, j, k, l = (int(x) for x in t[1:])
-        if i and j and k and l:
-            for a, b, c, d in ((i, j, k, l), (j, i, k, l), (i, j, l, k), (j, i, l, k),
-                               (k, l, i, j), (l, k, i, j), (k, l, j, i), (l, k, j, i)):
-                h2[a - 1, b - 1, c - 1, d - 1] = v
-        elif i and j:
-            h1[i - 1, j - 1] = h1[j - 1, i - 1] = v
-        elif not i:
-            const = v
-    return norb, nelec, ms2, h1, h2, const
 
 
 def set_electrons(src, dst, nelec, ms2):

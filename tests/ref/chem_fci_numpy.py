@@ -13,32 +13,10 @@ import numpy as np
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 from chem_common import tmpdir, Checker, driver, h2o
+from ref_common import read_fcidump  # the FCIDUMP reader of the checks (tests/ref/ref_common.py)
 
 c = Checker()
 tmp = tmpdir("cairn-fcinp-")
-
-
-def read_fcidump(path):
-    """A minimal reader of the layout cairn writes (for this test only)."""
-    txt = open(path).read()
-    head, body = txt.split("&END", 1)
-    kv = dict(f.split("=") for f in head.replace("\n", " ").replace(",", " ").split() if "=" in f)
-    n = int(kv["NORB"])
-    h1 = np.zeros((n, n))
-    h2 = np.zeros((n, n, n, n))
-    core = 0.0
-    for line in body.strip().splitlines():
-        v, i, j, k, l = line.split()
-        v, i, j, k, l = float(v), int(i), int(j), int(k), int(l)
-        if i and j and k and l:
-            for a, b, cc, d in ((i, j, k, l), (j, i, k, l), (i, j, l, k), (j, i, l, k),
-                                (k, l, i, j), (l, k, i, j), (k, l, j, i), (l, k, j, i)):
-                h2[a - 1, b - 1, cc - 1, d - 1] = v
-        elif i and j:
-            h1[i - 1, j - 1] = h1[j - 1, i - 1] = v
-        elif not i:
-            core = v
-    return n, h1, h2, core
 
 
 def apply(ops, det):
@@ -111,7 +89,7 @@ def fci_matrices(n, h1, h2, na, nb):
 
 
 def check(label, path, na, nb, mults):
-    n, h1, h2, core = read_fcidump(path)
+    n, _, _, h1, h2, core = read_fcidump(path)
     H, S2 = fci_matrices(n, h1, h2, na, nb)
     c.true("%s: H is symmetric" % label, np.abs(H - H.T).max() < 1e-12)
     w, v = np.linalg.eigh(H)  # numpy

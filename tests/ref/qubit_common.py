@@ -1,9 +1,9 @@
 """qubit_common.py — shared pieces of the qubit-layer reference checks.
 
 Everything here is written independently of cairn's C code: the FCIDUMP
-parser, the encoding matrices (tests/ref/ref_common.py; Bravyi-Kitaev by the
-recursive construction of Seeley, Richard and Love 2012), the Jordan-Wigner
-second quantization and the Pauli-word matrices.  cairn's side comes only through the check driver
+parser and the encoding matrices (both in tests/ref/ref_common.py;
+Bravyi-Kitaev by the recursive construction of Seeley, Richard and Love
+2012), the Jordan-Wigner second quantization and the Pauli-word matrices.  cairn's side comes only through the check driver
 (tests/ref/qubit_driver), which prints its Pauli sums as JSON.
 """
 import json
@@ -16,8 +16,8 @@ import numpy as np
 import scipy.sparse as sp
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
-# the encodings' GF(2) matrices (tests/ref/ref_common.py)
-from ref_common import encoding_matrix  # noqa: E402
+# the FCIDUMP reader and the encodings' GF(2) matrices (tests/ref/ref_common.py)
+from ref_common import encoding_matrix, read_fcidump  # noqa: E402,F401
 
 ENCODINGS = ["jordan-wigner", "bravyi-kitaev", "parity"]
 
@@ -74,41 +74,6 @@ def psi4_run(geometry, basis, tmpdir, name, fci=True, frozen_docc=None, frozen_u
     psi4.fcidump(wfn, path)
     e_fci = psi4.energy("fci") if fci else None
     return path, e_scf, e_fci
-
-
-def read_fcidump(path):
-    """FCIDUMP (Knowles & Handy 1989): returns norb, nelec, ms2, h1, h2, e0."""
-    text = open(path).read()
-    head, body = text.split("&END", 1) if "&END" in text else text.split("/", 1)
-    fields = {}
-    for part in head.replace("&FCI", "").replace("\n", " ").split(","):
-        if "=" in part:
-            k, v = part.split("=", 1)
-            fields[k.strip().upper()] = v.strip()
-    norb = int(fields["NORB"])
-    nelec = int(fields["NELEC"])
-    ms2 = int(fields.get("MS2", "0"))
-    h1 = np.zeros((norb, norb))
-    h2 = np.zeros((norb,) * 4)
-    e0 = 0.0
-    for line in body.splitlines():
-        f = line.split()
-        if len(f) != 5:
-            continue
-        v = float(f[0].replace("D", "E"))
-        i, j, k, l = (int(x) for x in f[1:])
-        if i == j == k == l == 0:
-            e0 = v
-        elif k == 0 and l == 0:
-            if j == 0:
-                continue  # orbital energy
-            h1[i - 1, j - 1] = h1[j - 1, i - 1] = v
-        else:
-            i, j, k, l = i - 1, j - 1, k - 1, l - 1
-            for a, b, c, d in ((i, j, k, l), (j, i, k, l), (i, j, l, k), (j, i, l, k),
-                               (k, l, i, j), (l, k, i, j), (k, l, j, i), (l, k, j, i)):
-                h2[a, b, c, d] = v
-    return norb, nelec, ms2, h1, h2, e0
 
 
 def write_fcidump(path, h1, h2, e0, nelec, ms2=0):

@@ -3,9 +3,10 @@
 Written independently of cairn's C code, with numpy: Pauli words and their
 dense matrices, the Jordan-Wigner algebra of ladder operators on words
 (Jordan & Wigner 1928; a_p = Z_0 ... Z_{p-1} (X_p + i Y_p) / 2, common
-practice), and the GF(2) matrices of the encodings (Bravyi-Kitaev by the
+practice), the GF(2) matrices of the encodings (Bravyi-Kitaev by the
 recursive construction of Seeley, Richard and Love, J. Chem. Phys. 137,
-224109, 2012).  Qubit q is bit q of a basis-state index (DEVELOPERS.md).
+224109, 2012), and a reader of FCIDUMP files (Knowles & Handy, Comput.
+Phys. Commun. 54, 75, 1989).  Qubit q is bit q of a basis-state index (DEVELOPERS.md).
 Nothing here checks anything: each test keeps its own checks, tolerances
 and sources.
 """
@@ -132,3 +133,45 @@ def permutation(A):
         b = (A @ v) % 2
         P[int(sum(int(b[q]) << q for q in range(n))), occ] = 1.0
     return P
+
+
+# ---- FCIDUMP files ------------------------------------------------------------
+
+def read_fcidump(path):
+    """(norb, nelec, ms2, h1, h2 chemists' (pq|rs) with the 8-fold symmetry,
+    constant) of an FCIDUMP file; orbital-energy lines (i 0 0 0) are skipped."""
+    text = open(path).read()
+    end = text.upper().find("&END")
+    if end >= 0:
+        head, body = text[:end], text[end + 4:]
+    else:
+        head, body = text.split("/", 1)
+    fields = {}
+    for part in head.replace("&FCI", "").replace("&fci", "").replace("\n", " ").split(","):
+        if "=" in part:
+            k, v = part.split("=", 1)
+            fields[k.strip().upper()] = v.strip()
+    norb = int(fields["NORB"])
+    nelec = int(fields["NELEC"])
+    ms2 = int(fields.get("MS2", "0"))
+    h1 = np.zeros((norb, norb))
+    h2 = np.zeros((norb,) * 4)
+    const = 0.0
+    for line in body.splitlines():
+        f = line.split()
+        if len(f) != 5:
+            continue
+        v = float(f[0].replace("D", "E").replace("d", "e"))
+        i, j, k, l = (int(x) for x in f[1:])
+        if i == j == k == l == 0:
+            const = v
+        elif k == 0 and l == 0:
+            if j == 0:
+                continue  # orbital energy
+            h1[i - 1, j - 1] = h1[j - 1, i - 1] = v
+        else:
+            i, j, k, l = i - 1, j - 1, k - 1, l - 1
+            for a, b, c, d in ((i, j, k, l), (j, i, k, l), (i, j, l, k), (j, i, l, k),
+                               (k, l, i, j), (l, k, i, j), (k, l, j, i), (l, k, j, i)):
+                h2[a, b, c, d] = v
+    return norb, nelec, ms2, h1, h2, const
