@@ -19,26 +19,14 @@ import numpy as np
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 # the FCIDUMP reader, the encodings' GF(2) matrices, the basis permutation
 # they make, and Pauli words (tests/ref/ref_common.py)
+import ref_common  # noqa: E402
 from ref_common import dense, encoding_matrix, parse_word, permutation, read_fcidump  # noqa: E402,F401
-
-sys.path.insert(0, "/usr/lib/x86_64-linux-gnu")
 
 
 def psi4_fcidump(geometry, path, basis="sto-3g", charge=0, mult=1):
     """RHF with psi4 (scf_type pk, tight convergence, c1, no reorientation) and
-    its own FCIDUMP writer.  Returns the SCF energy."""
-    import psi4
-
-    psi4.core.be_quiet()
-    psi4.set_memory("500 MB")
-    psi4.core.set_output_file(path + ".out", False)
-    mol = psi4.geometry("%d %d\n%s\nsymmetry c1\nno_reorient\nno_com\n" % (charge, mult, geometry))
-    psi4.set_options({"basis": basis, "scf_type": "pk", "e_convergence": 1e-10,
-                      "d_convergence": 1e-10, "reference": "rhf"})
-    e, wfn = psi4.energy("scf", return_wfn=True, molecule=mol)
-    psi4.fcidump(wfn, fname=path)
-    psi4.core.clean()
-    return e
+    its own FCIDUMP writer (ref_common.psi4_fcidump).  Returns the SCF energy."""
+    return ref_common.psi4_fcidump("%d %d\n%s" % (charge, mult, geometry), path, basis)[0]
 
 
 def set_electrons(src, dst, nelec, ms2):

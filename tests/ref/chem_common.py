@@ -17,6 +17,9 @@ BUILD = os.environ.get("CAIRN_BUILDDIR", os.path.join(os.path.dirname(__file__),
 SRC = os.environ.get("CAIRN_SRCDIR", os.path.join(os.path.dirname(__file__), "..", ".."))
 DRIVER = os.path.join(BUILD, "tests", "ref", "chem_driver")
 
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+from ref_common import PSI4_FRAME, PSI4_SCF, psi4_module  # noqa: E402  (tests/ref/ref_common.py)
+
 _psi4 = None
 _scratch = None
 
@@ -36,12 +39,7 @@ def psi4():
         # made before the import so that its removal (atexit, last in first
         # out) runs after psi4's own clean-up of the files in it
         _scratch = tmpdir("cairn-psi4-")
-        sys.path.insert(0, "/usr/lib/x86_64-linux-gnu")
-        try:
-            import psi4 as p
-        except ImportError:
-            print("psi4 is not installed (Debian package psi4): skipped")
-            sys.exit(77)
+        p = psi4_module()
         p.set_output_file(os.path.join(_scratch, "psi4.out"), False)
         p.core.be_quiet()
         p.core.IOManager.shared_object().set_default_path(_scratch)
@@ -56,11 +54,8 @@ def psi4_setup(geom, basis, charge=0, mult=1, reference="rhf", **extra):
     p = psi4()
     p.core.clean()
     p.core.clean_options()
-    p.geometry("%d %d\n%s\nunits bohr\nsymmetry c1\nno_reorient\nno_com\n"
-               % (charge, mult, geom.replace(";", "\n")))
-    opts = {"basis": basis, "scf_type": "pk", "e_convergence": 1e-10, "d_convergence": 1e-10,
-            "reference": reference, "mp2_type": "conv", "r_convergence": 1e-10,
-            "maxiter": 200}
+    p.geometry("%d %d\n%s\nunits bohr\n%s" % (charge, mult, geom.replace(";", "\n"), PSI4_FRAME))
+    opts = dict(PSI4_SCF, basis=basis, reference=reference, mp2_type="conv", r_convergence=1e-10, maxiter=200)
     opts.update(extra)
     p.set_options(opts)
     return p

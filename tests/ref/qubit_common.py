@@ -16,8 +16,8 @@ import numpy as np
 import scipy.sparse as sp
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
-# the FCIDUMP reader and the encodings' GF(2) matrices (tests/ref/ref_common.py)
-from ref_common import encoding_matrix, read_fcidump  # noqa: E402,F401
+# the FCIDUMP reader, the encodings' GF(2) matrices and psi4 (tests/ref/ref_common.py)
+from ref_common import encoding_matrix, psi4_fcidump, read_fcidump  # noqa: E402,F401
 
 ENCODINGS = ["jordan-wigner", "bravyi-kitaev", "parity"]
 
@@ -41,38 +41,13 @@ def driver(fcidump, encoding, taper=False):
     return json.loads(out.stdout)
 
 
-def psi4_module():
-    """Debian's psi4, importable from Debian's python3."""
-    sys.path.insert(0, "/usr/lib/x86_64-linux-gnu")
-    try:
-        import psi4  # noqa: E402
-    except ImportError:
-        print("SKIP: psi4 is not installed (apt-get install psi4)")
-        sys.exit(77)
-    return psi4
-
-
 def psi4_run(geometry, basis, tmpdir, name, fci=True, frozen_docc=None, frozen_uocc=None):
     """SCF (and FCI) with psi4, live; writes NAME.fcidump.  Returns
-    (path, e_scf, e_fci or None).  Options as REFERENCES.md prescribes."""
-    psi4 = psi4_module()
+    (path, e_scf, e_fci or None).  Options as REFERENCES.md prescribes
+    (ref_common.psi4_fcidump)."""
     os.chdir(tmpdir)  # psi4 leaves scratch files (timer.dat) in the working directory
-    psi4.core.clean()
-    psi4.core.clean_options()
-    psi4.core.set_output_file(os.path.join(tmpdir, name + ".out"), False)
-    psi4.set_memory("500 MB")
-    psi4.geometry(geometry + "\nsymmetry c1\nno_reorient\nno_com\n")
-    opts = {"basis": basis, "scf_type": "pk", "e_convergence": 1e-10, "d_convergence": 1e-10,
-            "r_convergence": 1e-8}
-    if frozen_docc is not None:
-        opts["frozen_docc"] = [frozen_docc]
-    if frozen_uocc is not None:
-        opts["frozen_uocc"] = [frozen_uocc]
-    psi4.set_options(opts)
-    e_scf, wfn = psi4.energy("scf", return_wfn=True)
     path = os.path.join(tmpdir, name + ".fcidump")
-    psi4.fcidump(wfn, path)
-    e_fci = psi4.energy("fci") if fci else None
+    e_scf, e_fci = psi4_fcidump(geometry, path, basis, frozen_docc, frozen_uocc, fci)
     return path, e_scf, e_fci
 
 

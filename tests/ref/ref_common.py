@@ -5,11 +5,15 @@ dense matrices, the Jordan-Wigner algebra of ladder operators on words
 (Jordan & Wigner 1928; a_p = Z_0 ... Z_{p-1} (X_p + i Y_p) / 2, common
 practice), the GF(2) matrices of the encodings (Bravyi-Kitaev by the
 recursive construction of Seeley, Richard and Love, J. Chem. Phys. 137,
-224109, 2012), and a reader of FCIDUMP files (Knowles & Handy, Comput.
-Phys. Commun. 54, 75, 1989).  Qubit q is bit q of a basis-state index (DEVELOPERS.md).
+224109, 2012), a reader of FCIDUMP files (Knowles & Handy, Comput.
+Phys. Commun. 54, 75, 1989), and psi4 (Debian's, run live) with the
+project's reference settings.  Qubit q is bit q of a basis-state index (DEVELOPERS.md).
 Nothing here checks anything: each test keeps its own checks, tolerances
 and sources.
 """
+import os
+import sys
+
 import numpy as np
 
 # ---- Pauli words as {qubit: letter} -----------------------------------------
@@ -175,3 +179,46 @@ def read_fcidump(path):
                                (k, l, i, j), (l, k, i, j), (k, l, j, i), (l, k, j, i)):
                 h2[a, b, c, d] = v
     return norb, nelec, ms2, h1, h2, const
+
+
+# ---- psi4, run live ------------------------------------------------------------
+
+# The reference settings for psi4: SCF options and the molecule's frame.
+PSI4_SCF = {"scf_type": "pk", "e_convergence": 1e-10, "d_convergence": 1e-10}
+PSI4_FRAME = "symmetry c1\nno_reorient\nno_com\n"
+
+
+def psi4_module():
+    """Debian's psi4, importable from Debian's python3; exits 77 (skip) when
+    it is not installed."""
+    sys.path.insert(0, "/usr/lib/x86_64-linux-gnu")
+    try:
+        import psi4
+    except ImportError:
+        print("psi4 is not installed (Debian package psi4): skipped")
+        sys.exit(77)
+    return psi4
+
+
+def psi4_fcidump(molecule, path, basis, frozen_docc=None, frozen_uocc=None, fci=False):
+    """RHF with psi4 on `molecule` (psi4 geometry text: charge and
+    multiplicity line, atoms, units), its own FCIDUMP writer into `path`, and
+    with fci also psi4's full-CI energy (r_convergence 1e-8).  Output goes to
+    path + ".out".  Returns (e_scf, e_fci or None)."""
+    psi4 = psi4_module()
+    psi4.core.clean()
+    psi4.core.clean_options()
+    psi4.core.set_output_file(path + ".out", False)
+    psi4.set_memory("500 MB")
+    mol = psi4.geometry(molecule + "\n" + PSI4_FRAME)
+    opts = dict(PSI4_SCF, basis=basis, reference="rhf", r_convergence=1e-8)
+    if frozen_docc is not None:
+        opts["frozen_docc"] = [frozen_docc]
+    if frozen_uocc is not None:
+        opts["frozen_uocc"] = [frozen_uocc]
+    psi4.set_options(opts)
+    e_scf, wfn = psi4.energy("scf", return_wfn=True, molecule=mol)
+    psi4.fcidump(wfn, path)
+    e_fci = psi4.energy("fci", molecule=mol) if fci else None
+    psi4.core.clean()
+    return e_scf, e_fci

@@ -22,15 +22,10 @@ import tempfile
 import numpy as np
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
-# the Jordan-Wigner ladder-operator algebra (tests/ref/ref_common.py)
-from ref_common import excitation_words, product, text  # noqa: E402
+# the Jordan-Wigner ladder-operator algebra and psi4 (tests/ref/ref_common.py)
+from ref_common import PSI4_FRAME, PSI4_SCF, excitation_words, product, psi4_module, text  # noqa: E402
 
-sys.path.insert(0, "/usr/lib/x86_64-linux-gnu")
-try:
-    import psi4
-except ImportError:
-    print("psi4 is not importable from /usr/bin/python3: skipped")
-    sys.exit(77)
+psi4 = psi4_module()
 
 
 def add(acc, s, c):
@@ -41,17 +36,8 @@ def add(acc, s, c):
 def h2_problem(r):
     psi4.core.be_quiet()
     psi4.core.clean()
-    psi4.set_options({"basis": "sto-3g", "scf_type": "pk", "e_convergence": 1e-10, "d_convergence": 1e-10,
-                      "reference": "rhf"})
-    mol = psi4.geometry(f"""
-    0 1
-    H 0 0 0
-    H 0 0 {r}
-    symmetry c1
-    no_reorient
-    no_com
-    units angstrom
-    """)
+    psi4.set_options(dict(PSI4_SCF, basis="sto-3g", reference="rhf"))
+    mol = psi4.geometry(f"0 1\nH 0 0 0\nH 0 0 {r}\nunits angstrom\n" + PSI4_FRAME)
     e_scf, wfn = psi4.energy("scf", molecule=mol, return_wfn=True)
     e_fci = psi4.energy("fci", molecule=mol)
     C = np.asarray(wfn.Ca())
