@@ -49,35 +49,19 @@ def check(cond, what):
 
 def psi4_child():
     """In a child process (psi4 writes files into its working directory when
-    the interpreter exits): print the energies along the stretch as JSON;
-    exit 77 when psi4 is not installed."""
+    the interpreter exits): print the energies along the stretch as JSON, by
+    the computation that made the golden inputs (make_inputs.water); exit 77
+    when psi4 is not installed."""
     sys.path.insert(0, "/usr/lib/x86_64-linux-gnu")
     try:
-        import psi4
+        import psi4  # noqa: F401
     except ImportError:
         sys.exit(77)
-    psi4.core.be_quiet()
-    psi4.set_memory("500 MB")
-    psi4.set_num_threads(1)
-    psi4.set_options({"basis": "sto-3g", "scf_type": "pk", "e_convergence": 1e-10, "d_convergence": 1e-10,
-                      "r_convergence": 1e-9, "mp2_type": "conv"})
-    out = []
-    a = math.radians(104.5 / 2)
-    for r in R:
-        mol = psi4.geometry(f"""
-0 1
-O 0 0 0
-H 0 {r * math.sin(a)!r} {r * math.cos(a)!r}
-H 0 {-r * math.sin(a)!r} {r * math.cos(a)!r}
-symmetry c1
-no_reorient
-no_com
-units angstrom
-""")
-        out.append({"nuclear": mol.nuclear_repulsion_energy(), "hf": psi4.energy("scf"),
-                    "mp2": psi4.energy("mp2"), "ccsd": psi4.energy("ccsd"), "exact": psi4.energy("fci")})
-        psi4.core.clean()
-    print(json.dumps(out))
+    sys.path.insert(0, os.path.join(SRC, "tests", "golden", "report"))
+    import make_inputs
+
+    make_inputs.psi4_settings()
+    print(json.dumps([make_inputs.water(r) for r in R]))
     sys.exit(0)
 
 

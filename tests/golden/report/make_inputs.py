@@ -29,6 +29,7 @@ NOTE = ("test data: nuclear/hf/mp2/ccsd/exact from psi4 1.3.2 (full CI over all 
 
 
 def water(r):
+    """psi4's energies of the water stretch at O-H distance r (angstrom)."""
     a = math.radians(104.5 / 2)
     mol = psi4.geometry(f"""
 0 1
@@ -46,13 +47,18 @@ units angstrom
     return e
 
 
-def main():
-    out = sys.argv[1] if len(sys.argv) > 1 else os.path.dirname(os.path.abspath(__file__))
+def psi4_settings():
+    """psi4 set up for water(): quiet, one thread, the reference settings."""
     psi4.core.be_quiet()
     psi4.set_memory("500 MB")
     psi4.set_num_threads(1)
     psi4.set_options({"basis": "sto-3g", "scf_type": "pk", "e_convergence": 1e-10, "d_convergence": 1e-10,
                       "r_convergence": 1e-9, "mp2_type": "conv"})
+
+
+def main():
+    out = sys.argv[1] if len(sys.argv) > 1 else os.path.dirname(os.path.abspath(__file__))
+    psi4_settings()
     gens = [("double", "8 9 -> 10 11", -0.1812, 0.1105, 13), ("double", "6 7 -> 12 13", -0.0921, 0.0634, 13),
             ("single", "8 -> 10", 0.0213, -0.0121, 4), ("qubit-double", "6 9 -> 10 13", -0.0077, 0.0049, 13)]
     invented_err_mEh = [0.021, 0.048, 0.19, 0.62, 1.24, 2.1, 3.55]
@@ -101,4 +107,5 @@ def main():
         f.write("\n")
 
 
-main()
+if __name__ == "__main__":
+    main()
