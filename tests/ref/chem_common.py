@@ -5,30 +5,26 @@ The checks run cairn's chemistry chain through tests/ref/chem_driver and psi4
 the project's reference conventions require: scf_type pk, e_convergence 1e-10,
 d_convergence 1e-10, symmetry c1, no_reorient, no_com; geometries in bohr.
 """
-import atexit
 import json
 import os
-import shutil
 import subprocess
 import sys
-import tempfile
 
 BUILD = os.environ.get("CAIRN_BUILDDIR", os.path.join(os.path.dirname(__file__), "..", ".."))
 SRC = os.environ.get("CAIRN_SRCDIR", os.path.join(os.path.dirname(__file__), "..", ".."))
 DRIVER = os.path.join(BUILD, "tests", "ref", "chem_driver")
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
-from ref_common import PSI4_FRAME, PSI4_SCF, psi4_module  # noqa: E402  (tests/ref/ref_common.py)
+import ref_common  # noqa: E402  (tests/ref/ref_common.py)
+from ref_common import PSI4_FRAME, PSI4_SCF, psi4_module  # noqa: E402
 
 _psi4 = None
 _scratch = None
 
 
 def tmpdir(prefix="cairn-chem-"):
-    """A temporary directory removed when the test exits."""
-    d = tempfile.mkdtemp(prefix=prefix)
-    atexit.register(shutil.rmtree, d, True)
-    return d
+    """A temporary directory removed when the test exits (ref_common.tmpdir)."""
+    return ref_common.tmpdir(prefix)
 
 
 def psi4():

@@ -10,13 +10,13 @@ import json
 import os
 import subprocess
 import sys
-import tempfile
 
 import numpy as np
 import scipy.sparse as sp
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 # the FCIDUMP reader, the encodings' GF(2) matrices and psi4 (tests/ref/ref_common.py)
+import ref_common  # noqa: E402
 from ref_common import encoding_matrix, psi4_fcidump, read_fcidump  # noqa: E402,F401
 
 ENCODINGS = ["jordan-wigner", "bravyi-kitaev", "parity"]
@@ -240,9 +240,5 @@ def jw_spin_squared(norb):
 
 
 def tmpdir():
-    """A scratch directory removed when the process exits."""
-    import atexit
-    import shutil
-    d = tempfile.mkdtemp(prefix="cairn-qubit-")
-    atexit.register(shutil.rmtree, d, True)
-    return d
+    """A scratch directory removed when the process exits (ref_common.tmpdir)."""
+    return ref_common.tmpdir("cairn-qubit-")

@@ -11,8 +11,11 @@ project's reference settings.  Qubit q is bit q of a basis-state index (DEVELOPE
 Nothing here checks anything: each test keeps its own checks, tolerances
 and sources.
 """
+import atexit
 import os
+import shutil
 import sys
+import tempfile
 
 import numpy as np
 
@@ -179,6 +182,15 @@ def read_fcidump(path):
                                (k, l, i, j), (l, k, i, j), (k, l, j, i), (l, k, j, i)):
                 h2[a, b, c, d] = v
     return norb, nelec, ms2, h1, h2, const
+
+
+# ---- scratch directories ------------------------------------------------------
+
+def tmpdir(prefix="cairn-check-"):
+    """A temporary directory removed when the process exits."""
+    d = tempfile.mkdtemp(prefix=prefix)
+    atexit.register(shutil.rmtree, d, True)
+    return d
 
 
 # ---- psi4, run live ------------------------------------------------------------
