@@ -22,6 +22,7 @@
 #include "cairn/fcidump.h"
 #include "cairn/pool.h"
 #include "cairn/util.h"
+#include "../support/testbench.h"
 #include "../support/testdata.h"
 #include "../support/testref.h"
 
@@ -29,9 +30,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
-#include <sys/wait.h>
 #include <time.h>
-#include <unistd.h>
 
 typedef struct result {
   size_t hterms, pool;
@@ -144,35 +143,14 @@ static void baseline_case(result *out) {
   chem_space_free(&cs);
 }
 
-/* Run fn in a child; its result comes back through a pipe. */
-static int in_child(result *out, void (*fn)(void *, result *), void *arg) {
-  int fd[2];
-  if (pipe(fd) != 0) return -1;
-  fflush(stdout);
-  pid_t pid = fork();
-  if (pid == 0) {
-    close(fd[0]);
-    result r;
-    memset(&r, 0, sizeof r);
-    fn(arg, &r);
-    ssize_t w = write(fd[1], &r, sizeof r);
-    _exit(w == (ssize_t)sizeof r ? 0 : 1);
-  }
-  close(fd[1]);
-  ssize_t got = read(fd[0], out, sizeof *out);
-  close(fd[0]);
-  int st = 0;
-  waitpid(pid, &st, 0);
-  return got == (ssize_t)sizeof *out && WIFEXITED(st) && WEXITSTATUS(st) == 0 ? 0 : -1;
-}
-
 typedef struct job {
   const char *fcidump;
   int random_norb;
   ir_rule_kind kind;
 } job;
 
-static void run_job(void *arg, result *out) {
+/* One case, in a child (testbench_in_child): out is a result. */
+static void run_job(void *arg, void *out) {
   const job *j = arg;
   chem_space cs;
   if (j->fcidump) {
@@ -186,7 +164,7 @@ static void run_job(void *arg, result *out) {
   chem_space_free(&cs);
 }
 
-static void run_baseline(void *arg, result *out) {
+static void run_baseline(void *arg, void *out) {
   (void)arg;
   baseline_case(out);
 }
@@ -205,7 +183,7 @@ int main(int argc, char **argv) {
     char name[64];
     snprintf(name, sizeof name, "%s %s", c < 2 ? "FCIDUMP" : "random 50 orbitals",
              c % 2 ? "UCCSD doubles" : "flip-set entanglers");
-    if (in_child(&r, run_job, &j) != 0) {
+    if (testbench_in_child(run_job, &j, &r, sizeof r) != 0) {
       printf("%-40s failed\n", name);
       continue;
     }
@@ -228,7 +206,7 @@ int main(int argc, char **argv) {
   }
   result b;
   memset(&b, 0, sizeof b);
-  if (in_child(&b, run_baseline, NULL) == 0) {
+  if (testbench_in_child(run_baseline, NULL, &b, sizeof b) == 0) {
     printf("baseline, 20 qubits (10 random orbitals), entanglers + doubles, %zu generators, %zu H terms:\n", b.pool,
            b.hterms);
     printf("  generic commutator route %.3f s, grouped closed form %.4f s: ratio %.1fx; largest difference %.1e\n",

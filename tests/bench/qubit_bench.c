@@ -19,13 +19,13 @@
 #include "cairn/fcidump.h"
 #include "cairn/qubit.h"
 #include "cairn/util.h"
+#include "../support/testbench.h"
 #include "../support/testdata.h"
 #include "../support/testref.h"
 
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
-#include <sys/wait.h>
 #include <unistd.h>
 
 static const ir_encoding ENCODINGS[3] = {IR_ENC_JORDAN_WIGNER, IR_ENC_BRAVYI_KITAEV, IR_ENC_PARITY};
@@ -66,8 +66,7 @@ static result run_case(const chem_space *s, ir_encoding e, int reps, int generic
   return r;
 }
 
-/* Run one case in a child so its peak RSS is measured alone.  The space is
- * made in the child too (from file or random). */
+/* One case; the space is made in the child too (from file or random). */
 typedef struct spec {
   const char *file;  /* FCIDUMP, or NULL for random */
   int norb;
@@ -75,33 +74,25 @@ typedef struct spec {
   int reps, generic;
 } spec;
 
-static int run_child(const spec *sp, result *out) {
-  int fd[2];
-  if (pipe(fd) != 0) return -1;
-  pid_t pid = fork();
-  if (pid < 0) return -1;
-  if (pid == 0) {
-    close(fd[0]);
-    chem_space s;
-    if (sp->file) {
-      diag_ctx *d = diag_new(stderr, DIAG_COLOR_NEVER);
-      memset(&s, 0, sizeof s);
-      if (fcidump_read(d, sp->file, DIAG_NOWHERE, &s) != 0) _exit(1);
-      diag_free(d);
-    } else {
-      random_space(&s, sp->norb, 2024);
-    }
-    result r = run_case(&s, sp->e, sp->reps, sp->generic);
-    ssize_t wr = write(fd[1], &r, sizeof r);
-    chem_space_free(&s);
-    _exit(wr == (ssize_t)sizeof r ? 0 : 1);
+/* One case (testbench_in_child): arg is a spec, out a result. */
+static void child_case(void *arg, void *out) {
+  const spec *sp = arg;
+  chem_space s;
+  if (sp->file) {
+    diag_ctx *d = diag_new(stderr, DIAG_COLOR_NEVER);
+    memset(&s, 0, sizeof s);
+    if (fcidump_read(d, sp->file, DIAG_NOWHERE, &s) != 0) _exit(1);
+    diag_free(d);
+  } else {
+    random_space(&s, sp->norb, 2024);
   }
-  close(fd[1]);
-  ssize_t got = read(fd[0], out, sizeof *out);
-  close(fd[0]);
-  int st = 0;
-  waitpid(pid, &st, 0);
-  return got == (ssize_t)sizeof *out && WIFEXITED(st) && WEXITSTATUS(st) == 0 ? 0 : -1;
+  *(result *)out = run_case(&s, sp->e, sp->reps, sp->generic);
+  chem_space_free(&s);
+}
+
+/* Run one case in a child so its peak RSS is measured alone. */
+static int run_child(const spec *sp, result *out) {
+  return testbench_in_child(child_case, (void *)sp, out, sizeof *out);
 }
 
 int main(int argc, char **argv) {
