@@ -38,7 +38,7 @@ tests_unit_test_chem_io_LDADD = $(UNIT_LDADD)
 ## the check program the reference tests drive beside psi4
 check_PROGRAMS += tests/ref/chem_driver
 tests_ref_chem_driver_SOURCES = tests/ref/chem_driver.c
-tests_ref_chem_driver_LDADD = $(CAIRN_LIBS)
+tests_ref_chem_driver_LDADD = $(TESTSUPPORT_LIBS) $(CAIRN_LIBS)
 check_PROGRAMS += tests/unit/test_chem_ints tests/unit/test_chem_methods
 UNIT_TESTS += tests/unit/test_chem_ints tests/unit/test_chem_methods
 tests_unit_test_chem_ints_SOURCES = tests/unit/test_chem_ints.c
@@ -58,7 +58,7 @@ EXTRA_DIST += $(CHEM_REF_TESTS) tests/ref/chem_common.py tests/ref/chem_heh.gbs 
 ## benchmark (make bench): integrals + SCF and the exact solver, beside psi4
 noinst_PROGRAMS += tests/bench/chem_bench
 tests_bench_chem_bench_SOURCES = tests/bench/chem_bench.c
-tests_bench_chem_bench_LDADD = $(CAIRN_LIBS)
+tests_bench_chem_bench_LDADD = $(TESTSUPPORT_LIBS) $(CAIRN_LIBS)
 EXTRA_DIST += tests/bench/chem_bench.py
 BENCH_TARGETS += bench-chem
 bench-chem: tests/bench/chem_bench$(EXEEXT)

@@ -14,32 +14,12 @@
 #include "cairn/integrals.h"
 #include "cairn/scf.h"
 #include "cairn/util.h"
+#include "../support/testdata.h"
 
 #include <cblas.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
-
-static int atoms_of(const char *txt, ir_atom **out) {
-  char *copy = xstrdup(txt), *save = NULL;
-  int n = 0;
-  size_t cap = 0;
-  ir_atom *a = NULL;
-  for (char *t = strtok_r(copy, ";", &save); t; t = strtok_r(NULL, ";", &save)) {
-    char sym[8];
-    double x, y, z;
-    if (sscanf(t, " %7s %lf %lf %lf", sym, &x, &y, &z) != 4) continue;
-    UTIL_GROW(a, cap, (size_t)n + 1);
-    memset(&a[n], 0, sizeof a[n]);
-    a[n].z = element_z(sym, (int)strlen(sym));
-    a[n].xyz[0] = x, a[n].xyz[1] = y, a[n].xyz[2] = z;
-    a[n].span = DIAG_NOWHERE;
-    n++;
-  }
-  free(copy);
-  *out = a;
-  return n;
-}
 
 int main(int argc, char **argv) {
   if (argc != 4 || (strcmp(argv[1], "scf") && strcmp(argv[1], "exact"))) {
@@ -51,8 +31,9 @@ int main(int argc, char **argv) {
   diag_ctx *d = diag_new(stderr, DIAG_COLOR_NEVER);
   basis_set bs;
   if (basis_load(d, argv[2], NULL, DIAG_NOWHERE, &bs) != 0) return 1;
-  ir_atom *at;
-  int n = atoms_of(argv[3], &at), ne = 0;
+  ir_atom *at = NULL;
+  int n = 0, ne = 0; /* atoms in bohr (tests/support/testdata.c) */
+  if (testdata_atoms("chem_bench", argv[3], 0, &at, &n) != 0) n = 0;
   for (int i = 0; i < n; i++) ne += at[i].z;
   int_basis ib;
   if (n == 0 || ne % 2 || int_basis_build(&bs, at, n, &ib) != 0) {

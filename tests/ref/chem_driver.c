@@ -28,6 +28,7 @@
 #include "cairn/integrals.h"
 #include "cairn/json.h"
 #include "cairn/util.h"
+#include "../support/testdata.h"
 
 #include <cblas.h>
 #include <math.h>
@@ -38,39 +39,6 @@
 static int usage(const char *msg) {
   fprintf(stderr, "chem_driver: %s\n", msg);
   return 2;
-}
-
-/* Parse "Sym x y z; Sym x y z; ..." into atoms (bohr). */
-static int parse_atoms(const char *txt, int angstrom, ir_atom **out, int *nat) {
-  char *copy = xstrdup(txt), *save = NULL;
-  int n = 0;
-  size_t cap = 0;
-  ir_atom *a = NULL;
-  for (char *tok = strtok_r(copy, ";\n", &save); tok; tok = strtok_r(NULL, ";\n", &save)) {
-    char sym[8];
-    double x, y, z;
-    if (sscanf(tok, " %7s %lf %lf %lf", sym, &x, &y, &z) != 4) continue;
-    UTIL_GROW(a, cap, (size_t)n + 1);
-    memset(&a[n], 0, sizeof a[n]);
-    a[n].z = element_z(sym, (int)strlen(sym));
-    if (a[n].z == 0) {
-      fprintf(stderr, "chem_driver: unknown element `%s`\n", sym);
-      free(copy);
-      free(a);
-      return -1;
-    }
-    snprintf(a[n].symbol, sizeof a[n].symbol, "%s", element_symbol(a[n].z));
-    double f = angstrom ? 1.0 / 0.529177210903 : 1.0; /* CODATA 2018 */
-    a[n].xyz[0] = x * f;
-    a[n].xyz[1] = y * f;
-    a[n].xyz[2] = z * f;
-    a[n].span = DIAG_NOWHERE;
-    n++;
-  }
-  free(copy);
-  *out = a;
-  *nat = n;
-  return n > 0 ? 0 : -1;
 }
 
 int main(int argc, char **argv) {
@@ -145,7 +113,7 @@ int main(int argc, char **argv) {
       goto done;
     }
     r.problem = IR_PROBLEM_ATOMS;
-    if (parse_atoms(atoms, angstrom, &pt.atoms, &r.natoms) != 0) {
+    if (testdata_atoms("chem_driver", atoms, angstrom, &pt.atoms, &r.natoms) != 0) {
       status = usage("bad --atoms");
       goto done;
     }

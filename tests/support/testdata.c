@@ -1,9 +1,13 @@
-/* testdata.c — random active spaces for the unit tests and benchmarks
- * (invented data). */
+/* testdata.c — random active spaces (invented data) and molecules from text
+ * for the unit tests, check drivers and benchmarks. */
 #include "config.h"
 
 #include "testdata.h"
 
+#include "cairn/element.h"
+
+#include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 
 void testdata_space(chem_space *s, int norb, int nalpha, int nbeta, const testdata_scales *k, util_rng *r) {
@@ -35,4 +39,36 @@ void testdata_space(chem_space *s, int norb, int nalpha, int nbeta, const testda
                            {a, b, p, q}, {b, a, p, q}, {a, b, q, p}, {b, a, q, p}};
           for (int i = 0; i < 8; i++) s->h2[chem_h2_index(norb, idx[i][0], idx[i][1], idx[i][2], idx[i][3])] = v;
         }
+}
+
+int testdata_atoms(const char *who, const char *txt, int angstrom, ir_atom **out, int *nat) {
+  char *copy = xstrdup(txt), *save = NULL;
+  int n = 0;
+  size_t cap = 0;
+  ir_atom *a = NULL;
+  for (char *tok = strtok_r(copy, ";\n", &save); tok; tok = strtok_r(NULL, ";\n", &save)) {
+    char sym[8];
+    double x, y, z;
+    if (sscanf(tok, " %7s %lf %lf %lf", sym, &x, &y, &z) != 4) continue;
+    UTIL_GROW(a, cap, (size_t)n + 1);
+    memset(&a[n], 0, sizeof a[n]);
+    a[n].z = element_z(sym, (int)strlen(sym));
+    if (a[n].z == 0) {
+      fprintf(stderr, "%s: unknown element `%s`\n", who, sym);
+      free(copy);
+      free(a);
+      return -1;
+    }
+    snprintf(a[n].symbol, sizeof a[n].symbol, "%s", element_symbol(a[n].z));
+    double f = angstrom ? 1.0 / 0.529177210903 : 1.0; /* CODATA 2018 */
+    a[n].xyz[0] = x * f;
+    a[n].xyz[1] = y * f;
+    a[n].xyz[2] = z * f;
+    a[n].span = DIAG_NOWHERE;
+    n++;
+  }
+  free(copy);
+  *out = a;
+  *nat = n;
+  return n > 0 ? 0 : -1;
 }

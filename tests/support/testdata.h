@@ -1,16 +1,19 @@
-/* testdata.h — invented data for the unit tests and benchmarks: random active
- * spaces with the symmetries of real orbitals.
+/* testdata.h — data for the unit tests, check drivers and benchmarks: random
+ * active spaces with the symmetries of real orbitals (invented data), and
+ * molecules from a one-line text.
  *
  * Each caller keeps its own numbers (scales, diagonal, seed): the draws are in
  * one fixed order, so the same arguments give the same integrals bit for bit.
  *
  * Ownership: the chem_space filled by testdata_space is the caller's
- * (chem_space_free); the generator `r` is the caller's and is advanced.
+ * (chem_space_free); the generator `r` is the caller's and is advanced; the
+ * atoms of testdata_atoms are the caller's (free).
  */
 #ifndef CAIRN_TESTDATA_H
 #define CAIRN_TESTDATA_H
 
 #include "cairn/chem.h"
+#include "cairn/ir.h"
 #include "cairn/util.h"
 
 /* How the integrals are drawn from u, uniform on [0, 1):
@@ -31,5 +34,12 @@ typedef struct testdata_scales {
  * symmetric, (pq|rs) 8-fold symmetric; one draw per unique h1 element (p >= q,
  * row by row), then one per unique (pq|rs) (pair pq >= pair rs). */
 void testdata_space(chem_space *s, int norb, int nalpha, int nbeta, const testdata_scales *k, util_rng *r);
+
+/* Atoms from "Sym x y z; Sym x y z; ..." (';' or newline between atoms;
+ * pieces that are not four fields are skipped), positions in bohr, or in
+ * angstrom converted to bohr (CODATA 2018 bohr).  An unknown element is
+ * reported on stderr after `who`.  0 with *out (malloc'd) and *nat, or -1
+ * when an element is unknown or there are no atoms. */
+int testdata_atoms(const char *who, const char *txt, int angstrom, ir_atom **out, int *nat);
 
 #endif
