@@ -56,28 +56,7 @@ def annihilators(nmodes):
 
 def hamiltonian(norb, h1, h2, const, a):
     """H = c + sum h_pq a+_p a_q + 1/2 sum (pq|rs) a+_p a+_r a_s a_q over spin orbitals."""
-    n = 2 * norb
-    dim = 1 << n
-    ad = [x.T for x in a]
-    H = const * np.eye(dim)
-    for p in range(n):
-        for q in range(n):
-            if p % 2 == q % 2 and h1[p // 2, q // 2] != 0:
-                H += h1[p // 2, q // 2] * ad[p] @ a[q]
-    for p in range(n):
-        for q in range(n):
-            if p % 2 != q % 2:
-                continue
-            pq = ad[p] @ a[q]
-            for r in range(n):
-                for s in range(n):
-                    if r % 2 != s % 2:
-                        continue
-                    v = h2[p // 2, q // 2, r // 2, s // 2]
-                    if v == 0:
-                        continue
-                    H += 0.5 * v * (ad[p] @ ad[r] @ a[s] @ a[q])
-    return H
+    return ref_common.ladder_hamiltonian(h1, h2, const, a, [x.T for x in a], np.eye(1 << len(a)))
 
 
 def spin_operators(nmodes, a):

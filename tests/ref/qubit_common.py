@@ -201,28 +201,10 @@ def jw_annihilators(n):
 
 def jw_hamiltonian(h1, h2, e0):
     """H = e0 + sum h_pq a+_P a_Q + 1/2 sum (pq|rs) a+_P a+_R a_S a_Q over spin orbitals."""
-    norb = h1.shape[0]
-    n = 2 * norb
+    n = 2 * h1.shape[0]
     a = jw_annihilators(n)
     ad = [x.T.tocsr() for x in a]
-    H = e0 * sp.identity(1 << n, format="csr")
-    for P in range(n):
-        for Q in range(n):
-            if P % 2 == Q % 2 and h1[P // 2, Q // 2] != 0:
-                H = H + h1[P // 2, Q // 2] * (ad[P] @ a[Q])
-    for P in range(n):
-        for Q in range(n):
-            if P % 2 != Q % 2:
-                continue
-            EPQ = ad[P]
-            for R in range(n):
-                for S in range(n):
-                    if R % 2 != S % 2:
-                        continue
-                    g = h2[P // 2, Q // 2, R // 2, S // 2]
-                    if g != 0:
-                        H = H + 0.5 * g * (EPQ @ ad[R] @ a[S] @ a[Q])
-    return H
+    return ref_common.ladder_hamiltonian(h1, h2, e0, a, ad, sp.identity(1 << n, format="csr"))
 
 
 def jw_spin_squared(norb):

@@ -108,6 +108,33 @@ def excitation_words(frm, to):
     return {w: c.real for w, c in g.items() if abs(c) > 1e-12}
 
 
+# ---- second quantization by matrices --------------------------------------------
+
+def ladder_hamiltonian(h1, h2, const, a, ad, eye):
+    """H = const + sum h_pq a+_P a_Q + 1/2 sum (pq|rs) a+_P a+_R a_S a_Q over
+    spin orbitals (P = 2p + spin, spin kept along each pair; chemists'
+    notation), from the annihilator matrices a, their adjoints ad and the
+    identity eye (dense or sparse alike)."""
+    n = len(a)
+    H = const * eye
+    for p in range(n):
+        for q in range(n):
+            if p % 2 == q % 2 and h1[p // 2, q // 2] != 0:
+                H += h1[p // 2, q // 2] * (ad[p] @ a[q])
+    for p in range(n):
+        for q in range(n):
+            if p % 2 != q % 2:
+                continue
+            for r in range(n):
+                for s in range(n):
+                    if r % 2 != s % 2:
+                        continue
+                    v = h2[p // 2, q // 2, r // 2, s // 2]
+                    if v != 0:
+                        H += 0.5 * v * (ad[p] @ ad[r] @ a[s] @ a[q])
+    return H
+
+
 # ---- encodings as GF(2) matrices: b = A n ------------------------------------
 
 def encoding_matrix(name, n):
