@@ -39,44 +39,27 @@ import time
 import numpy as np
 import scipy.sparse
 
+sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "ref"))
+from ref_common import excitation_words, product  # noqa: E402
 
-# ---- Pauli algebra on (x, z) integer masks; word = i^|x&z| X^x Z^z ----------
+
+# ---- Pauli words: the Jordan-Wigner algebra of tests/ref/ref_common.py on
+# ((qubit, letter), ...) words, turned into (x, z) integer masks for the
+# numpy engine; word = i^|x&z| X^x Z^z --------------------------------------
 
 def popcount(v):
     return bin(v).count("1")
 
 
-def word_mul(a, b):
-    (x1, z1), (x2, z2) = a, b
-    x3, z3 = x1 ^ x2, z1 ^ z2
-    k = popcount(x1 & z1) + popcount(x2 & z2) - popcount(x3 & z3) + 2 * popcount(z1 & x2)
-    return (x3, z3), 1j ** (k % 4)
-
-
-def sum_mul(s, t):
-    out = {}
-    for wa, ca in s.items():
-        for wb, cb in t.items():
-            w, ph = word_mul(wa, wb)
-            out[w] = out.get(w, 0) + ca * cb * ph
-    return out
-
-
-def ladder(p, dagger):
-    """Jordan-Wigner a_p (dagger: a_p^+) = Z_0..Z_{p-1} (X_p +- i Y_p)/2."""
-    zs = (1 << p) - 1
-    xw = (1 << p, zs)              # Z string times X_p
-    yw = (1 << p, zs | (1 << p))   # Z string times Y_p (Y = both bits)
-    # Z_{<p} X_p and Z_{<p} Y_p as words: the Z string commutes with X_p, Y_p
-    s = -1j if dagger else 1j
-    return {xw: 0.5, yw: 0.5 * s}
-
-
-def product(ops):
-    out = {(0, 0): 1.0}
-    for p, d in ops:
-        out = sum_mul(out, ladder(p, d))
-    return out
+def masks(word):
+    """(x, z) masks of a ((qubit, letter), ...) word."""
+    x = z = 0
+    for q, l in word:
+        if l in "XY":
+            x |= 1 << q
+        if l in "YZ":
+            z |= 1 << q
+    return x, z
 
 
 def add_into(acc, s, c):
@@ -110,7 +93,7 @@ def hamiltonian(norb, rng):
     terms = {}
     for w, c in acc.items():
         if abs(c) > 1e-12:
-            terms[w] = c.real  # Hermitian: real coefficients
+            terms[masks(w)] = c.real  # Hermitian: real coefficients
     return terms
 
 
@@ -125,19 +108,9 @@ def word_text(w):
 
 
 def generator_words(exc):
-    """G = 2i (T - T^+) of an excitation as {word: real mult}."""
+    """G = 2i (T - T^+) of an excitation as {(x, z): real mult}."""
     frm, to = exc
-    t = product([(a, 1) for a in to] + [(i, 0) for i in reversed(frm)])
-    td = {}
-    for w, c in t.items():
-        td[w] = td.get(w, 0) + c
-    adj = product([(i, 1) for i in frm] + [(a, 0) for a in reversed(to)])
-    g = {}
-    for w, c in td.items():
-        g[w] = g.get(w, 0) + 2j * c
-    for w, c in adj.items():
-        g[w] = g.get(w, 0) - 2j * c
-    return {w: c.real for w, c in g.items() if abs(c) > 1e-12}
+    return {masks(w): m for w, m in excitation_words(frm, to).items()}
 
 
 def uccsd(nso, nelec):
