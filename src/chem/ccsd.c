@@ -11,6 +11,7 @@
 
 #include "cairn/chem.h"
 #include "cairn/util.h"
+#include "chem/chem_private.h"
 
 #include <cblas.h>
 #include <lapacke.h>
@@ -29,15 +30,9 @@ typedef struct ccsd {
   double *oooo, *ooov, *oovv, *ovvo, *ovov, *ovvv, *vvvv, *vvvo, *ovoo;
 } ccsd;
 
-/* <pq|rs> over spin orbitals from (pr|qs). */
-static double so_int(const chem_space *s, int p, int q, int r, int t) {
-  if ((p & 1) != (r & 1) || (q & 1) != (t & 1)) return 0;
-  return s->h2[chem_h2_index(s->norb, p >> 1, r >> 1, q >> 1, t >> 1)];
-}
-
 /* <pq||rs> in the renumbering. */
 static double anti(const chem_space *s, const int *so, int p, int q, int r, int t) {
-  return so_int(s, so[p], so[q], so[r], so[t]) - so_int(s, so[p], so[q], so[t], so[r]);
+  return chem_so_int(s, so[p], so[q], so[r], so[t]) - chem_so_int(s, so[p], so[q], so[t], so[r]);
 }
 
 /* Fill a block <p q || r t> with index ranges given by kinds ('o' or 'v'). */

@@ -2,6 +2,7 @@
 #ifndef CAIRN_CHEM_PRIVATE_H
 #define CAIRN_CHEM_PRIVATE_H
 
+#include "cairn/chem.h"
 #include "cairn/diag.h"
 
 #include <stddef.h>
@@ -40,6 +41,13 @@ int chem_tok_int(const chem_tok *t, int *x);
 /* Span of a field in file `file`. */
 static inline diag_span chem_tok_span(int32_t file, const chem_tok *t) {
   return (diag_span){file, t->off, t->off + (uint32_t)t->len};
+}
+
+/* <pq|rs> over spin orbitals (physicists' notation) from (pr|qs): zero
+ * unless p and r, and q and t, have the same spin (MP2 and CCSD). */
+static inline double chem_so_int(const chem_space *s, int p, int q, int r, int t) {
+  if ((p & 1) != (r & 1) || (q & 1) != (t & 1)) return 0;
+  return s->h2[chem_h2_index(s->norb, p >> 1, r >> 1, q >> 1, t >> 1)];
 }
 
 #endif

@@ -5,6 +5,7 @@
 
 #include "cairn/chem.h"
 #include "cairn/util.h"
+#include "chem/chem_private.h"
 
 #include <math.h>
 #include <stdlib.h>
@@ -54,19 +55,13 @@ int chem_mp2(const chem_space *s, diag_ctx *d, chem_refs *refs) {
   return 0;
 }
 
-/* <pq|rs> over spin orbitals (physicists' notation) from (pr|qs). */
-static double so_int(const chem_space *s, int p, int q, int r, int t) {
-  if ((p & 1) != (r & 1) || (q & 1) != (t & 1)) return 0;
-  return s->h2[chem_h2_index(s->norb, p >> 1, r >> 1, q >> 1, t >> 1)];
-}
-
 static int occupied(const chem_space *s, int so) { return (so & 1) ? (so >> 1) < s->nbeta : (so >> 1) < s->nalpha; }
 
 double chem_mp2_amplitude(const chem_space *s, int i, int j, int a, int b) {
   int nso = 2 * s->norb;
   if (i < 0 || j < 0 || a < 0 || b < 0 || i >= nso || j >= nso || a >= nso || b >= nso) return 0;
   if (!occupied(s, i) || !occupied(s, j) || occupied(s, a) || occupied(s, b) || i == j || a == b) return 0;
-  double num = so_int(s, i, j, a, b) - so_int(s, i, j, b, a);
+  double num = chem_so_int(s, i, j, a, b) - chem_so_int(s, i, j, b, a);
   if (num == 0) return 0;
   double den = fock(s, i & 1, i >> 1, i >> 1) + fock(s, j & 1, j >> 1, j >> 1) - fock(s, a & 1, a >> 1, a >> 1) -
                fock(s, b & 1, b >> 1, b >> 1);
