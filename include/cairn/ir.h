@@ -207,6 +207,10 @@ const char *ir_rule_name(ir_rule_kind k);
 const char *ir_method_name(ir_method m);
 const char *ir_emit_name(ir_emit_format f);
 const char *ir_unit_name(ir_unit u);
+const char *ir_order_name(ir_order o); /* "as written", "by gradient", "by rank" */
+/* The selection as written in recipes ("choose all", "choose 8 by gradient",
+ * "choose gradient above 1e-3", "grow to 30 until 1e-5"); malloc'd. */
+char *ir_choose_text(const ir_choose *c);
 
 /* Number of qubits before tapering: 2 * active orbitals. */
 int ir_qubits(const ir_recipe *r);

@@ -30,36 +30,17 @@ static const char *sig_mark(int v) {
   }
 }
 
-static char *choose_text(const ir_recipe *r) {
-  const ir_choose *c = &r->choose;
-  char b[32];
-  switch (c->kind) {
-  case IR_CHOOSE_COUNT: return xasprintf("choose %d by gradient", c->count);
-  case IR_CHOOSE_ABOVE: return xasprintf("choose gradient above %s", util_fmt_double(b, c->threshold));
-  case IR_CHOOSE_GROW: return xasprintf("grow to %d until %s", c->count, util_fmt_double(b, c->threshold));
-  default: return xstrdup("choose all");
-  }
-}
-
-static const char *order_text(const ir_recipe *r) {
-  switch (r->order) {
-  case IR_ORDER_GRADIENT: return "order by gradient";
-  case IR_ORDER_RANK: return "order by rank";
-  default: return "order as written";
-  }
-}
-
 void ans_table_print(const ans_plan *pl, const ir_recipe *r, const ans_problem *p, const diag_ctx *d, FILE *out) {
   (void)d;
   const ans_pool *pool = &pl->pool;
   int tapered = p->taper && p->taper->nsym > 0;
-  char *ct = choose_text(r);
+  char *ct = ir_choose_text(&r->choose);
   if (pl->grow)
     fprintf(out, "%s: a pool of %zu generator%s, ranked by |gradient| for `%s` (the run picks)\n",
             r->path ? r->path : "recipe", pool->len, pool->len == 1 ? "" : "s", ct);
   else
-    fprintf(out, "%s: %zu generator%s chosen from a pool of %zu (%s, %s)\n", r->path ? r->path : "recipe",
-            pl->norder, pl->norder == 1 ? "" : "s", pool->len, ct, order_text(r));
+    fprintf(out, "%s: %zu generator%s chosen from a pool of %zu (%s, order %s)\n", r->path ? r->path : "recipe",
+            pl->norder, pl->norder == 1 ? "" : "s", pool->len, ct, ir_order_name(r->order));
   free(ct);
   fprintf(out, "encoding %s, %d qubits", enc_name(r->encoding), p->nqubits);
   if (tapered) fprintf(out, " (%d removed by tapering)", p->taper->nsym);

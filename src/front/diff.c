@@ -278,21 +278,6 @@ static char *keep_text(const ir_keep *k, ir_symmetry s) {
   return xasprintf("%s %s %s", ir_symmetry_name(s), ir_policy_name(k->policy), util_fmt_double(v, k->value));
 }
 
-static char *choose_text(const ir_choose *c) {
-  char v[32];
-  switch (c->kind) {
-  case IR_CHOOSE_ALL: return xstrdup("choose all");
-  case IR_CHOOSE_COUNT: return xasprintf("choose %d by gradient", c->count);
-  case IR_CHOOSE_ABOVE: return xasprintf("choose gradient above %s", util_fmt_double(v, c->threshold));
-  case IR_CHOOSE_GROW: return xasprintf("grow to %d until %s", c->count, util_fmt_double(v, c->threshold));
-  }
-  return xstrdup("?");
-}
-
-static const char *order_text(ir_order o) {
-  return o == IR_ORDER_WRITTEN ? "as written" : o == IR_ORDER_GRADIENT ? "by gradient" : "by rank";
-}
-
 static void diff_optimizer(const ir_optimize *a, const ir_optimize *b, front_changes *out) {
   compare(out, "optimizer", ir_method_name(a->method), ir_method_name(b->method));
   char x[64], y[64];
@@ -350,8 +335,8 @@ void front_diff(const ir_recipe *a, const ir_recipe *b, front_changes *out) {
     compare_free(out, "keep", keep_text(&a->keep[k], (ir_symmetry)k), keep_text(&b->keep[k], (ir_symmetry)k));
   }
   diff_pool(a, b, out);
-  compare_free(out, "selection", choose_text(&a->choose), choose_text(&b->choose));
-  compare(out, "order", order_text(a->order), order_text(b->order));
+  compare_free(out, "selection", ir_choose_text(&a->choose), ir_choose_text(&b->choose));
+  compare(out, "order", ir_order_name(a->order), ir_order_name(b->order));
   compare_free(out, "trotter", num(a->trotter), num(b->trotter));
   diff_optimizer(&a->optimize, &b->optimize, out);
   diff_emits(a, b, out);

@@ -2,6 +2,7 @@
 #include "config.h"
 
 #include "cairn/ir.h"
+#include "cairn/util.h"
 
 #include <stdlib.h>
 
@@ -111,6 +112,26 @@ const char *ir_unit_name(ir_unit u) {
   case IR_UNIT_RADIAN: return "rad";
   }
   return "?";
+}
+
+const char *ir_order_name(ir_order o) {
+  switch (o) {
+  case IR_ORDER_WRITTEN: return "as written";
+  case IR_ORDER_GRADIENT: return "by gradient";
+  case IR_ORDER_RANK: return "by rank";
+  }
+  return "?";
+}
+
+char *ir_choose_text(const ir_choose *c) {
+  char v[32];
+  switch (c->kind) {
+  case IR_CHOOSE_ALL: return xstrdup("choose all");
+  case IR_CHOOSE_COUNT: return xasprintf("choose %d by gradient", c->count);
+  case IR_CHOOSE_ABOVE: return xasprintf("choose gradient above %s", util_fmt_double(v, c->threshold));
+  case IR_CHOOSE_GROW: return xasprintf("grow to %d until %s", c->count, util_fmt_double(v, c->threshold));
+  }
+  return xstrdup("?");
 }
 
 int ir_qubits(const ir_recipe *r) { return 2 * r->orbitals.nactive; }
