@@ -11,7 +11,6 @@
 #include <string.h>
 
 /* ORDER ir_symmetry */
-static const char *const sym_word[IR_SYM_COUNT] = {"particles", "spin-z", "spin-squared"};
 static const char *const sym_op[IR_SYM_COUNT] = {"N (particle number)", "S_z", "S^2 (total spin)"};
 static const char *const sym_what[IR_SYM_COUNT] = {"particle number", "S_z", "total spin S^2"};
 
@@ -112,7 +111,7 @@ static void apply_to_basis(const pauli_sum *S, const uint64_t *b, double *diag, 
 static void help_soft(diag_ctx *d, int s) {
   diag_help(d, "keep it softly: `keep %s penalty 0.5` adds a penalty to the energy, `keep %s checked 1e-6` "
                "verifies the optimized state",
-            sym_word[s], sym_word[s]);
+            ir_symmetry_name((ir_symmetry)s), ir_symmetry_name((ir_symmetry)s));
 }
 
 static int electrons_of(const ans_problem *p, const uint64_t *bits, int *na, int *nb) {
@@ -206,10 +205,7 @@ static char *rule_text(const ans_build *b, const ir_rule *rule) {
     while (n && (s[n - 1] == ' ' || s[n - 1] == '\t' || s[n - 1] == '\r')) n--;
     return xstrndup(s, n);
   }
-  /* ORDER ir_rule_kind */
-  static const char *const names[] = {"singles", "doubles", "entanglers", "qubit singles", "qubit doubles", "word",
-                                      "excite"};
-  return xstrdup((unsigned)rule->kind < sizeof names / sizeof names[0] ? names[rule->kind] : "rule");
+  return xstrdup(ir_rule_name(rule->kind));
 }
 
 static int is_explicit(const ir_rule *rule) { return rule->kind == IR_RULE_WORD || rule->kind == IR_RULE_EXCITE; }
@@ -229,7 +225,7 @@ static void symmetry_errors(ans_build *b, int i) {
                   "keeps it exactly",
                   rt, sym_op[s]);
       diag_note(d, ans_keep_span(r, s), "%s is kept exactly here", sym_what[s]);
-      diag_help(d, "keep %s with `checked`, or drop `taper`", sym_word[s]);
+      diag_help(d, "keep %s with `checked`, or drop `taper`", ir_symmetry_name((ir_symmetry)s));
       t->had_error = 1;
     }
     if (!t->breaks[s] && !t->static_break[s]) continue;

@@ -11,15 +11,8 @@
 #include <stdlib.h>
 #include <string.h>
 
-/* ORDER ir_encoding */
-static const char *const enc_names[] = {"jordan-wigner", "bravyi-kitaev", "parity"};
-/* ORDER ir_reference_kind */
-static const char *const ref_names[] = {"hartree-fock", "mean-field", "bits"};
 /* ORDER ir_symmetry */
 static const char *const sym_keys[IR_SYM_COUNT] = {"particles", "spin_z", "spin_squared"};
-
-static const char *enc_name(ir_encoding e) { return (unsigned)e < 3 ? enc_names[e] : "?"; }
-static const char *ref_name(ir_reference_kind k) { return (unsigned)k < 3 ? ref_names[k] : "?"; }
 
 static const char *sig_mark(int v) {
   switch (v) {
@@ -42,9 +35,9 @@ void ans_table_print(const ans_plan *pl, const ir_recipe *r, const ans_problem *
     fprintf(out, "%s: %zu generator%s chosen from a pool of %zu (%s, order %s)\n", r->path ? r->path : "recipe",
             pl->norder, pl->norder == 1 ? "" : "s", pool->len, ct, ir_order_name(r->order));
   free(ct);
-  fprintf(out, "encoding %s, %d qubits", enc_name(r->encoding), p->nqubits);
+  fprintf(out, "encoding %s, %d qubits", ir_encoding_name(r->encoding), p->nqubits);
   if (tapered) fprintf(out, " (%d removed by tapering)", p->taper->nsym);
-  fprintf(out, "; reference %s", ref_name(pl->ref.kind));
+  fprintf(out, "; reference %s", ir_reference_name(pl->ref.kind));
   if (!isnan(pl->ref.energy)) fprintf(out, ", energy %.10f Eh", pl->ref.energy);
   if (pl->ref.kind == IR_REF_MEAN_FIELD) fprintf(out, ", %d qubit%s tilted", pl->ref.tilted, pl->ref.tilted == 1 ? "" : "s");
   fputc('\n', out);
@@ -82,11 +75,11 @@ cJSON *ans_table_json(const ans_plan *pl, const ir_recipe *r, const ans_problem 
   const ans_pool *pool = &pl->pool;
   int tapered = p->taper && p->taper->nsym > 0;
   cJSON *o = cJSON_CreateObject();
-  cJSON_AddStringToObject(o, "encoding", enc_name(r->encoding));
+  cJSON_AddStringToObject(o, "encoding", ir_encoding_name(r->encoding));
   cJSON_AddNumberToObject(o, "qubits", p->nqubits);
   cJSON_AddNumberToObject(o, "removed", tapered ? p->taper->nsym : 0);
   cJSON *ref = cJSON_CreateObject();
-  cJSON_AddStringToObject(ref, "kind", ref_name(pl->ref.kind));
+  cJSON_AddStringToObject(ref, "kind", ir_reference_name(pl->ref.kind));
   char *bits = xmalloc((size_t)pl->ref.nqubits + 1);
   for (int q = 0; q < pl->ref.nqubits; q++) bits[q] = pauli_get_x(pl->ref.bits, q) ? '1' : '0';
   bits[pl->ref.nqubits] = 0;
