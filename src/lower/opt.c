@@ -34,11 +34,7 @@ const char *sim_stop_name(sim_stop s) {
   return (unsigned)s < sizeof names / sizeof names[0] ? names[s] : "?";
 }
 
-/* ORDER ir_method */
-const char *sim_method_name(ir_method m) {
-  static const char *const names[] = {"lbfgs", "slsqp", "bobyqa", "cobyla", "nelder-mead"};
-  return (unsigned)m < sizeof names / sizeof names[0] ? names[m] : "?";
-}
+const char *sim_method_name(ir_method m) { return ir_method_name(m); }
 
 static nlopt_algorithm method_algorithm(ir_method m) {
   switch (m) {
