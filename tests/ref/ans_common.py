@@ -17,8 +17,9 @@ import sys
 import numpy as np
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
-# the FCIDUMP reader, the encodings' GF(2) matrices, the basis permutation
-# they make, and Pauli words (tests/ref/ref_common.py)
+# psi4, the FCIDUMP reader, the encodings' GF(2) matrices, the basis
+# permutation they make, Pauli words and the Hamiltonian from ladder
+# matrices (tests/ref/ref_common.py)
 import ref_common  # noqa: E402
 from ref_common import dense, encoding_matrix, parse_word, permutation, read_fcidump  # noqa: E402,F401
 

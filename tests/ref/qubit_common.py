@@ -1,10 +1,12 @@
 """qubit_common.py — shared pieces of the qubit-layer reference checks.
 
 Everything here is written independently of cairn's C code: the FCIDUMP
-parser and the encoding matrices (both in tests/ref/ref_common.py;
-Bravyi-Kitaev by the recursive construction of Seeley, Richard and Love
-2012), the Jordan-Wigner second quantization and the Pauli-word matrices.  cairn's side comes only through the check driver
-(tests/ref/qubit_driver), which prints its Pauli sums as JSON.
+parser, the encoding matrices (Bravyi-Kitaev by the recursive construction
+of Seeley, Richard and Love 2012) and the Hamiltonian from ladder matrices
+(all three in tests/ref/ref_common.py), the Jordan-Wigner second
+quantization and the Pauli-word matrices.  cairn's side comes only through
+the check driver (tests/ref/qubit_driver), which prints its Pauli sums as
+JSON.
 """
 import json
 import os

@@ -5,11 +5,12 @@ dense matrices, the Jordan-Wigner algebra of ladder operators on words
 (Jordan & Wigner 1928; a_p = Z_0 ... Z_{p-1} (X_p + i Y_p) / 2, common
 practice), the GF(2) matrices of the encodings (Bravyi-Kitaev by the
 recursive construction of Seeley, Richard and Love, J. Chem. Phys. 137,
-224109, 2012), a reader of FCIDUMP files (Knowles & Handy, Comput.
-Phys. Commun. 54, 75, 1989), and psi4 (Debian's, run live) with the
-project's reference settings.  Qubit q is bit q of a basis-state index (DEVELOPERS.md).
-Nothing here checks anything: each test keeps its own checks, tolerances
-and sources.
+224109, 2012), the second-quantized Hamiltonian from ladder matrices, a
+reader of FCIDUMP files (Knowles & Handy, Comput. Phys. Commun. 54, 75,
+1989), scratch directories, and psi4 (Debian's, run live) with the
+project's reference settings.  Qubit q is bit q of a basis-state index
+(DEVELOPERS.md).  Nothing here checks anything: each test keeps its own
+checks, tolerances and sources.
 """
 import atexit
 import os
