@@ -4,3 +4,6 @@ UNIT_TESTS += tests/unit/test_util
 tests_unit_test_util_SOURCES = tests/unit/test_util.c
 tests_unit_test_util_CFLAGS = $(UNIT_CFLAGS)
 tests_unit_test_util_LDADD = $(UNIT_LDADD)
+
+## acceptance studies and examples (owned by the acceptance work)
+include tests/accept.mk
