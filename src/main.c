@@ -26,10 +26,13 @@ static const command commands[] = {
      "cairn fmt [--check] FILE...\n"
      "  Rewrite each recipe in canonical layout (comments kept).  With --check,\n"
      "  print the names of files that are not formatted and exit 1; change nothing.\n"},
-    {"diff", cmd_diff, "semantic difference of two recipes",
-     "cairn diff [--json] A B\n"
-     "  Say what differs in meaning between recipes A and B.  Exit 0 when they mean\n"
-     "  the same (even if written differently), 1 when they differ.\n"},
+    {"diff", cmd_diff, "semantic difference of two recipes and of their circuits",
+     "cairn diff [--json] [--no-lower] [--point K] A B\n"
+     "  Say what differs in meaning between recipes A and B and, when they differ,\n"
+     "  between their lowered circuits at scan point K (default 1): generators\n"
+     "  added, removed or reordered, and the change in CNOT count and depth.\n"
+     "  --no-lower compares meaning only (no chemistry is computed).  Exit 0 when\n"
+     "  they mean the same (even if written differently), 1 when they differ.\n"},
     {"show", cmd_show, "the generator table or the qubit Hamiltonian",
      "cairn show [--json] [--hamiltonian] FILE\n"
      "  Print the ranked generator table of the recipe, or with --hamiltonian the\n"

@@ -2,32 +2,33 @@
 #include "config.h"
 
 #include "cairn/pipe.h"
+#include "cairn/pool.h"
 #include "cairn/util.h"
 
 #include <stdlib.h>
 #include <string.h>
 
-/* Hartree-Fock occupations (interleaved spin orbitals) as encoded bits. */
-static void hf_bits(const pipe_point *p, uint64_t *out) {
-  int nmodes = 2 * p->space.norb;
-  uint64_t *occ = xcalloc((size_t)pauli_nwords(nmodes), sizeof *occ);
-  for (int i = 0; i < p->space.nalpha; i++) pauli_set(occ, 2 * i, 1);
-  for (int i = 0; i < p->space.nbeta; i++) pauli_set(occ, 2 * i + 1, 1);
-  qubit_encoder_bits(p->enc, occ, out);
-  free(occ);
-}
-
-int pipe_point_build(const ir_recipe *r, int point, diag_ctx *d, pipe_point *out) {
-  memset(out, 0, sizeof *out);
-  out->point = point;
-  if (chem_build_space(r, point, d, &out->space, &out->refs) != 0) return -1;
-  int nmodes = 2 * out->space.norb;
+int pipe_point_from_space(const ir_recipe *r, const chem_space *cs, diag_ctx *d, pipe_point *out) {
+  if (out->cs != &out->space) memset(out, 0, sizeof *out);
+  out->cs = cs;
+  out->norb = cs ? cs->norb : r->orbitals.nactive;
+  out->nalpha = cs ? cs->nalpha : r->orbitals.nalpha;
+  out->nbeta = cs ? cs->nbeta : r->orbitals.nbeta;
+  int nmodes = 2 * out->norb;
+  int nw = pauli_nwords(nmodes);
   out->enc = qubit_encoder_new(r->encoding, nmodes);
   pauli_sum_init(&out->ham_full, nmodes);
-  qubit_hamiltonian(&out->space, out->enc, &out->ham_full);
-  int nw = pauli_nwords(nmodes);
+  if (cs) {
+    qubit_hamiltonian(cs, out->enc, &out->ham_full);
+    out->has_ham = 1;
+  }
+  /* The reference basis state (the Hartree-Fock determinant, or the recipe's
+   * `bits`): tapering keeps its symmetry sector. */
   out->ref_full = xcalloc((size_t)nw, sizeof(uint64_t));
-  hf_bits(out, out->ref_full);
+  if (ans_reference_bits(r, out->enc, out->norb, out->nalpha, out->nbeta, d, out->ref_full) != 0) {
+    pipe_point_free(out);
+    return -1;
+  }
 
   pauli_sum full[IR_SYM_COUNT];
   for (int s = 0; s < IR_SYM_COUNT; s++) pauli_sum_init(&full[s], nmodes);
@@ -35,12 +36,9 @@ int pipe_point_build(const ir_recipe *r, int point, diag_ctx *d, pipe_point *out
   qubit_spin_z(out->enc, &full[IR_SYM_SPIN_Z]);
   qubit_spin_squared(out->enc, &full[IR_SYM_SPIN_SQUARED]);
 
-  if (r->taper) {
-    qubit_taper_find(&out->ham_full, out->ref_full, out->enc, &out->taper);
-  } else {
-    memset(&out->taper, 0, sizeof out->taper);
-    out->taper.nqubits = nmodes;
-  }
+  memset(&out->taper, 0, sizeof out->taper);
+  out->taper.nqubits = nmodes;
+  if (r->taper && out->has_ham) qubit_taper_find(&out->ham_full, out->ref_full, out->enc, &out->taper);
   out->nqubits = nmodes - out->taper.nsym;
   out->ref = xcalloc((size_t)pauli_nwords(out->nqubits), sizeof(uint64_t));
   pauli_sum_init(&out->ham, out->nqubits);
@@ -51,10 +49,9 @@ int pipe_point_build(const ir_recipe *r, int point, diag_ctx *d, pipe_point *out
       pauli_sum_init(&out->sym[s], out->nqubits);
       /* N, S_z and S^2 commute with every Z2 symmetry of a molecular
        * Hamiltonian (parities and point-group operations), so they taper. */
-      if (qubit_taper_apply(&out->taper, &full[s], &out->sym[s]) != 0) {
-        diag_report(d, DIAG_ERROR, r->encoding_span,
-                    "internal: %s does not commute with a tapered symmetry", ir_symmetry_name((ir_symmetry)s));
-      }
+      if (qubit_taper_apply(&out->taper, &full[s], &out->sym[s]) != 0)
+        diag_report(d, DIAG_ERROR, r->encoding_span, "internal: %s does not commute with a tapered symmetry",
+                    ir_symmetry_name((ir_symmetry)s));
       pauli_sum_free(&full[s]);
     }
   } else {
@@ -65,9 +62,22 @@ int pipe_point_build(const ir_recipe *r, int point, diag_ctx *d, pipe_point *out
   return 0;
 }
 
+int pipe_point_build(const ir_recipe *r, int point, diag_ctx *d, pipe_point *out) {
+  memset(out, 0, sizeof *out);
+  if (chem_build_space(r, point, d, &out->space, &out->refs) != 0) {
+    chem_space_free(&out->space);
+    memset(out, 0, sizeof *out);
+    return -1;
+  }
+  out->cs = &out->space; /* owned: from_space keeps space and refs */
+  if (pipe_point_from_space(r, &out->space, d, out) != 0) return -1;
+  out->point = point;
+  return 0;
+}
+
 void pipe_point_free(pipe_point *p) {
-  chem_space_free(&p->space);
-  qubit_encoder_free(p->enc);
+  chem_space_free(&p->space); /* empty unless pipe_point_build made it */
+  if (p->enc) qubit_encoder_free(p->enc);
   pauli_sum_free(&p->ham_full);
   qubit_taper_free(&p->taper); /* safe on a zeroed taper */
   pauli_sum_free(&p->ham);

@@ -44,18 +44,6 @@ static double sym_target(const ir_recipe *r, ir_symmetry s) {
   }
 }
 
-/* objective += mu (X - x0)^2 */
-static void add_penalty(pauli_sum *objective, const pauli_sum *X, double x0, double mu) {
-  pauli_sum sq;
-  pauli_sum_init(&sq, X->n);
-  pauli_sum_mul(&sq, X, X);
-  pauli_sum_add_sum(objective, &sq, mu);
-  pauli_sum_add_sum(objective, X, -2.0 * mu * x0);
-  pauli_sum_add_identity(objective, mu * x0 * x0);
-  pauli_sum_free(&sq);
-  pauli_sum_canonicalize(objective, 0.0);
-}
-
 /* Identify a program by the texts of its generators, for warm starts. */
 static char *program_signature(const ans_circuit *c) {
   util_buf b = {0};
@@ -178,29 +166,13 @@ static int optimize_program(opt_job *j, const ans_circuit *c, char *err, size_t 
   return rc;
 }
 
-/* The ansatz's view of a built point (borrowed pointers). */
-static void problem_of(const pipe_point *pp, const ir_recipe *r, ans_problem *prob) {
-  memset(prob, 0, sizeof *prob);
-  prob->nmodes = 2 * pp->space.norb;
-  prob->nqubits = pp->nqubits;
-  prob->norb = pp->space.norb;
-  prob->nalpha = pp->space.nalpha;
-  prob->nbeta = pp->space.nbeta;
-  prob->multiplicity = r->multiplicity;
-  prob->enc = pp->enc;
-  prob->taper = pp->taper.nsym > 0 ? &pp->taper : NULL;
-  prob->H = &pp->ham;
-  for (int s = 0; s < IR_SYM_COUNT; s++) prob->sym[s] = &pp->sym[s];
-  prob->ref_full = pp->ref_full;
-}
-
 /* objective = H + mu (X - x0)^2 for every `keep X penalty mu`. */
 static void build_objective(const pipe_point *pp, const ir_recipe *r, pauli_sum *objective) {
   pauli_sum_init(objective, pp->nqubits);
   pauli_sum_copy(objective, &pp->ham);
   for (int s = 0; s < IR_SYM_COUNT; s++)
     if (r->keep[s].policy == IR_KEEP_PENALTY)
-      add_penalty(objective, &pp->sym[s], sym_target(r, (ir_symmetry)s), r->keep[s].value);
+      sim_add_penalty(objective, &pp->sym[s], sym_target(r, (ir_symmetry)s), r->keep[s].value);
 }
 
 int run_circuit(const ir_recipe *r, int k, diag_ctx *d, ans_circuit *c) {
@@ -208,7 +180,7 @@ int run_circuit(const ir_recipe *r, int k, diag_ctx *d, ans_circuit *c) {
   pipe_point pp;
   if (pipe_point_build(r, k, d, &pp) != 0) return -1;
   ans_problem prob;
-  problem_of(&pp, r, &prob);
+  ans_problem_from_point(&prob, r, &pp);
   ans_plan plan;
   int rc = ans_plan_build(&plan, r, &prob, d);
   if (rc == 0 && plan.grow) {
@@ -292,11 +264,11 @@ int run_point(const ir_recipe *r, int k, diag_ctx *d, const run_options *o, run_
   fill_energies(out, &pp.refs, &pp.space);
 
   ans_problem prob;
-  problem_of(&pp, r, &prob);
-
   ans_plan plan;
+  ans_problem_from_point(&prob, r, &pp);
   if (ans_plan_build(&plan, r, &prob, d) != 0) {
     out->failure = failure_text("generators", d, NULL);
+    ans_plan_free(&plan); /* the plan is freed even when it failed */
     pipe_point_free(&pp);
     out->seconds = util_now() - t0;
     return -1;

@@ -23,10 +23,23 @@
  *  - The gradient of a generator is g = dE/dtheta at theta = 0
  *        = (i/2) <ref| [G, H] |ref>.
  *
- * Registers: generators are built on the full register (2*norb qubits, before
- * tapering), typed there against N, S_z, S^2 and the removed Z2 symmetries, then
- * carried to the ansatz register by the tapering Clifford.  Entanglers are made
- * from the Hamiltonian the ansatz acts on, directly on the ansatz register.
+ * Registers: rule-made and explicit generators are built on the full register
+ * (2*norb qubits), checked there against every removed Z2 symmetry, carried to
+ * the ansatz register by the tapering Clifford, and typed there against N,
+ * S_z and S^2 (the tapered operators when tapering: a commutator that vanishes
+ * in the kept sector counts as commuting).  Entanglers are made from the
+ * Hamiltonian the ansatz acts on, directly on the ansatz register.
+ *
+ * Checks (symmetry.c): under `keep X exactly` every generator is typed; a
+ * rule with generators that break X is an error at the rule, with a note at
+ * the keep line and help (penalty, checked, or a conserving rule); so is a
+ * reference that is not an eigenstate with the recipe's value (a mean-field
+ * reference always is an error there).  Under tapering an explicit `word` or
+ * `excite` that breaks a removed symmetry is an error; rule-made ones are
+ * dropped with one warning per rule.  Warnings: a rule that makes or keeps
+ * nothing, a copy that involves an explicit generator (copies between rule
+ * families go quietly), a generator that vanishes (on the tapered register),
+ * a pool that selection leaves empty.
  *
  * Ownership: ans_problem only borrows.  ans_setup, ans_reference, ans_pool and
  * ans_plan own their arrays; each has a _free function.  Output structs are
@@ -65,13 +78,8 @@ typedef struct ans_problem {
  * given): encoder, Hamiltonian, tapering (sector of the reference bits),
  * symmetry operators, reference bits. */
 typedef struct ans_setup {
-  ans_problem prob;
-  qubit_encoder *enc;
-  pauli_sum H_full, H;        /* H: on the ansatz register */
-  int has_h;
-  qubit_taper taper;
-  pauli_sum sym[IR_SYM_COUNT];
-  uint64_t *ref_full;
+  ans_problem prob;           /* borrows from pp */
+  struct pipe_point *pp;      /* the pipeline's results (pipe.h), owned */
 } ans_setup;
 
 /* Build the setup of recipe r; cs (may be NULL) is the active space of the point
@@ -86,15 +94,10 @@ void ans_setup_free(ans_setup *s);
 int ans_reference_bits(const ir_recipe *r, const qubit_encoder *enc, int norb, int nalpha, int nbeta,
                        diag_ctx *d, uint64_t *out);
 
-/* The problem of one pipeline point (pipe.h) without rebuilding anything:
- * ref_bits is the caller's buffer (pauli_nwords(2 norb) words) for the
- * reference bits (ans_reference_bits).  The pipeline tapers in the sector of
- * the Hartree-Fock state, so `reference bits` in another sector is reported
- * at the reference (then use ans_setup_init, which tapers in the sector of
- * the bits).  Returns 0 or -1. */
+/* The problem of one pipeline point (pipe.h), borrowing everything from it
+ * (the pipeline tapers in the sector of the recipe's reference bits). */
 struct pipe_point;
-int ans_problem_from_point(ans_problem *p, const ir_recipe *r, const struct pipe_point *pp, uint64_t *ref_bits,
-                           diag_ctx *d);
+void ans_problem_from_point(ans_problem *p, const ir_recipe *r, const struct pipe_point *pp);
 
 /* The reference state on the ansatz register. */
 typedef struct ans_reference {
@@ -179,6 +182,8 @@ void ans_plan_circuit(const ans_plan *pl, const ir_recipe *r, ans_circuit *c);
 /* Type the chosen generators against every symmetry still untyped (plan
  * building types only what `keep ... exactly` needs; tables want all). */
 void ans_plan_type(ans_plan *pl, const ans_problem *p);
+/* The same for one generator of the pool. */
+void ans_gen_type(ans_pool *pool, size_t k, const ans_problem *p);
 
 /* Gradient (i/2)<ref|[G, H]|ref> of the pool's generator k at a product state,
  * by closed forms over H's terms (no statevector; builds the term index, so
@@ -231,9 +236,9 @@ void ans_table_print(const ans_plan *pl, const ir_recipe *r, const ans_problem *
 cJSON *ans_table_json(const ans_plan *pl, const ir_recipe *r, const ans_problem *p, const diag_ctx *d);
 
 /* `cairn check` after front_load: builds the active space and the Hamiltonian
- * only when the recipe needs them (entanglers, tapering, a gradient threshold),
- * then types every generator and the reference.  Returns 0 or -1 (errors
- * reported through d). */
+ * (of scan point 0) only when the recipe needs them (entanglers, tapering, a
+ * gradient threshold), then types every generator and the reference; never
+ * simulates.  Returns 0 or -1 (errors reported through d). */
 int ans_check(const ir_recipe *r, diag_ctx *d);
 /* `cairn show`: the generator table of scan point 0, text or JSON, to out.
  * Returns 0, or -1 after reporting through d. */

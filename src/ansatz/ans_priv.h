@@ -99,6 +99,8 @@ typedef struct ans_build {
   ans_dedupe dd;
   int type_all[IR_SYM_COUNT];        /* kept exactly: type every generator now */
   int rule;                          /* rule being expanded */
+  int rule_line;                     /* its 1-based line */
+  pauli_sum word;                    /* scratch for one-word generators */
 } ans_build;
 
 /* One pool rule: expands rule b->rule into generators through ans_add_*. */
@@ -109,6 +111,8 @@ void ans_rule_entanglers(ans_build *b, const ir_rule *rule);
 /* Add a generator made on the full register (G is consumed): canonicalize,
  * type against the removed Z2s, taper, type, deduplicate, append. */
 void ans_add_full(ans_build *b, const ans_gen_info *info, pauli_sum *G);
+/* Room for `more` generators (one word each) before a large rule adds them. */
+void ans_reserve(ans_build *b, size_t more);
 /* Add a generator made on the ansatz register (entanglers): one word. */
 void ans_add_reg_word(ans_build *b, const ans_gen_info *info, const uint64_t *x, const uint64_t *z,
                       double gradient);

@@ -194,26 +194,34 @@ void ans_rule_entanglers(ans_build *b, const ir_rule *rule) {
   const pauli_sum *H = b->p->H;
   const ans_screen *s = b->scr;
   int n = H->n, nw = H->nw;
-  ans_maskset fs;
-  ans_maskset_init(&fs, nw, H->len / 4 + 16);
-  for (size_t k = 0; k < H->len; k++) {
-    const uint64_t *x = pauli_sum_x(H, k);
-    int nz = 0;
-    for (int i = 0; i < nw; i++) nz |= x[i] != 0;
-    if (nz) ans_maskset_add(&fs, x, NULL);
+  /* The flip sets: with no tilted qubit the screen's groups are exactly the
+   * distinct X-masks of H, so its table is reused; else one more hash pass. */
+  int any_tilt = 0;
+  for (int i = 0; i < nw; i++) any_tilt |= s->tilt[i] != 0;
+  ans_maskset own;
+  const ans_maskset *fs = &s->keys;
+  if (any_tilt) {
+    ans_maskset_init(&own, nw, H->len / 4 + 16);
+    for (size_t k = 0; k < H->len; k++) ans_maskset_add(&own, pauli_sum_x(H, k), NULL);
+    fs = &own;
   }
-  size_t nf = fs.len;
-  size_t *ord = xmalloc((nf ? nf : 1) * sizeof *ord);
-  for (size_t i = 0; i < nf; i++) ord[i] = i;
+  size_t *ord = xmalloc((fs->len ? fs->len : 1) * sizeof *ord), nf = 0;
+  for (size_t i = 0; i < fs->len; i++) {
+    const uint64_t *x = fs->m + i * (size_t)nw;
+    int nz = 0;
+    for (int w = 0; w < nw; w++) nz |= x[w] != 0;
+    if (nz) ord[nf++] = i;
+  }
   uint64_t *zero = xcalloc((size_t)nw, sizeof *zero);
-  fs_sort ctx = {&fs, zero};
+  fs_sort ctx = {fs, zero};
   qsort_r(ord, nf, sizeof *ord, cmp_flipsets, &ctx);
+  ans_reserve(b, nf);
 
   uint64_t *y = xcalloc((size_t)nw, sizeof *y);
   int *pos = xmalloc((size_t)(n > 0 ? n : 1) * sizeof *pos);
   unsigned char *pat = xmalloc((size_t)(n > 0 ? n : 1));
   for (size_t oi = 0; oi < nf; oi++) {
-    const uint64_t *f = fs.m + ord[oi] * (size_t)nw;
+    const uint64_t *f = fs->m + ord[oi] * (size_t)nw;
     int m = 0, tilted = 0;
     for (int i = 0; i < nw; i++) {
       if (f[i] & s->tilt[i]) tilted = 1;
@@ -248,5 +256,5 @@ void ans_rule_entanglers(ans_build *b, const ir_rule *rule) {
   free(y);
   free(zero);
   free(ord);
-  ans_maskset_free(&fs);
+  if (any_tilt) ans_maskset_free(&own);
 }

@@ -125,11 +125,8 @@ static long append_gen(ans_build *b, const ans_gen_info *info, const pauli_sum *
   g->info = *info;
   g->info.text = xstrdup(info->text ? info->text : "");
   g->info.rule = b->rule;
-  int line = 0, col = 0;
-  diag_span sp = b->r->rules[b->rule].span;
-  if (sp.file >= 0) diag_line_col(b->d, sp.file, sp.start, &line, &col);
-  g->info.line = line;
-  g->span = sp;
+  g->info.line = b->rule_line;
+  g->span = b->r->rules[b->rule].span;
   g->off = pool->words.len;
   g->len = G->len;
   g->gradient = gradient;
@@ -230,14 +227,21 @@ void ans_add_full(ans_build *b, const ans_gen_info *info, pauli_sum *G) {
   append_gen(b, info, G, NAN);
 }
 
+void ans_reserve(ans_build *b, size_t more) {
+  ans_pool *pool = &b->pl->pool;
+  UTIL_GROW(pool->gen, pool->cap, pool->len + more);
+  pauli_sum_reserve(&pool->words, pool->words.len + more);
+  size_t need = 64;
+  while (need < 2 * (pool->len + more)) need *= 2;
+  if (need > b->dd.nslots) dd_rehash(b, need);
+}
+
 void ans_add_reg_word(ans_build *b, const ans_gen_info *info, const uint64_t *x, const uint64_t *z,
                       double gradient) {
   b->tally[b->rule].tried++;
-  pauli_sum G;
-  pauli_sum_init(&G, b->p->nqubits);
-  pauli_sum_add(&G, x, z, 1.0);
-  append_gen(b, info, &G, gradient);
-  pauli_sum_free(&G);
+  pauli_sum_clear(&b->word);
+  pauli_sum_add(&b->word, x, z, 1.0);
+  append_gen(b, info, &b->word, gradient);
 }
 
 double ans_gen_gradient(const ans_pool *pool, size_t k, const pauli_sum *H, const ans_reference *ref) {
@@ -299,11 +303,15 @@ int ans_plan_build(ans_plan *pl, const ir_recipe *r, const ans_problem *p, diag_
     b.tally[i].dup_of = -1;
   }
   dd_rehash(&b, 64);
+  pauli_sum_init(&b.word, p->nqubits);
   for (int s = 0; s < IR_SYM_COUNT; s++) b.type_all[s] = r->keep[s].policy == IR_KEEP_EXACTLY;
 
   ans_type_reference(&b);
   for (int i = 0; i < r->nrules; i++) {
     b.rule = i;
+    int col = 0;
+    b.rule_line = 0;
+    if (r->rules[i].span.file >= 0) diag_line_col(d, r->rules[i].span.file, r->rules[i].span.start, &b.rule_line, &col);
     ans_rule_fn fn = ans_rule_lookup(r->rules[i].kind);
     if (fn) fn(&b, &r->rules[i]);
     pl->pool.rule_made[i] = b.tally[i].made;
@@ -323,5 +331,6 @@ int ans_plan_build(ans_plan *pl, const ir_recipe *r, const ans_problem *p, diag_
   }
   free(b.tally);
   free(b.dd.slot);
+  pauli_sum_free(&b.word);
   return diag_errors(d) > errors0 ? -1 : 0;
 }

@@ -10,12 +10,10 @@
 #include <string.h>
 
 void ans_setup_free(ans_setup *s) {
-  if (s->enc) qubit_encoder_free(s->enc);
-  pauli_sum_free(&s->H_full);
-  pauli_sum_free(&s->H);
-  qubit_taper_free(&s->taper);
-  for (int k = 0; k < IR_SYM_COUNT; k++) pauli_sum_free(&s->sym[k]);
-  free(s->ref_full);
+  if (s->pp) {
+    pipe_point_free(s->pp);
+    free(s->pp);
+  }
   memset(s, 0, sizeof *s);
 }
 
@@ -44,90 +42,27 @@ int ans_reference_bits(const ir_recipe *r, const qubit_encoder *enc, int norb, i
   return 0;
 }
 
+/* The pipeline (pipe.h) builds encoder, Hamiltonian, tapering and symmetry
+ * operators; the setup only adds the problem view of them. */
 int ans_setup_init(ans_setup *s, const ir_recipe *r, const chem_space *cs, diag_ctx *d) {
   memset(s, 0, sizeof *s);
-  ans_problem *p = &s->prob;
-  p->norb = cs ? cs->norb : r->orbitals.nactive;
-  p->nalpha = cs ? cs->nalpha : r->orbitals.nalpha;
-  p->nbeta = cs ? cs->nbeta : r->orbitals.nbeta;
-  p->multiplicity = r->multiplicity > 0 ? r->multiplicity : p->nalpha - p->nbeta + 1;
-  p->nmodes = 2 * p->norb;
-  p->nqubits = p->nmodes;
-  pauli_sum_init(&s->H_full, p->nmodes);
-  pauli_sum_init(&s->H, p->nmodes);
-  for (int k = 0; k < IR_SYM_COUNT; k++) pauli_sum_init(&s->sym[k], p->nmodes);
-  s->taper.nqubits = p->nmodes;
-  s->enc = qubit_encoder_new(r->encoding, p->nmodes);
-  p->enc = s->enc;
-  s->ref_full = xcalloc((size_t)pauli_nwords(p->nmodes), sizeof *s->ref_full);
-  p->ref_full = s->ref_full;
-  if (ans_reference_bits(r, s->enc, p->norb, p->nalpha, p->nbeta, d, s->ref_full) != 0) return -1;
-  pauli_sum full[IR_SYM_COUNT];
-  for (int k = 0; k < IR_SYM_COUNT; k++) pauli_sum_init(&full[k], p->nmodes);
-  qubit_number(s->enc, &full[IR_SYM_PARTICLES]);
-  qubit_spin_z(s->enc, &full[IR_SYM_SPIN_Z]);
-  qubit_spin_squared(s->enc, &full[IR_SYM_SPIN_SQUARED]);
-  if (cs) {
-    qubit_hamiltonian(cs, s->enc, &s->H_full);
-    s->has_h = 1;
-    if (r->taper) qubit_taper_find(&s->H_full, s->ref_full, s->enc, &s->taper);
-  }
-  if (s->taper.nsym > 0) {
-    p->taper = &s->taper;
-    p->nqubits = p->nmodes - s->taper.nsym;
-    pauli_sum_free(&s->H);
-    pauli_sum_init(&s->H, p->nqubits);
-    qubit_taper_apply(&s->taper, &s->H_full, &s->H);
-    for (int k = 0; k < IR_SYM_COUNT; k++) {
-      pauli_sum_free(&s->sym[k]);
-      pauli_sum_init(&s->sym[k], p->nqubits);
-      p->sym[k] = qubit_taper_apply(&s->taper, &full[k], &s->sym[k]) == 0 ? &s->sym[k] : NULL;
-    }
-  } else {
-    pauli_sum_free(&s->H);
-    s->H = s->H_full;
-    pauli_sum_init(&s->H_full, p->nmodes);
-    for (int k = 0; k < IR_SYM_COUNT; k++) {
-      pauli_sum_free(&s->sym[k]);
-      s->sym[k] = full[k];
-      pauli_sum_init(&full[k], p->nmodes);
-      p->sym[k] = &s->sym[k];
-    }
-  }
-  for (int k = 0; k < IR_SYM_COUNT; k++) pauli_sum_free(&full[k]);
-  p->H = s->has_h ? &s->H : NULL;
+  s->pp = xcalloc(1, sizeof *s->pp);
+  if (pipe_point_from_space(r, cs, d, s->pp) != 0) return -1;
+  ans_problem_from_point(&s->prob, r, s->pp);
   return 0;
 }
 
-int ans_problem_from_point(ans_problem *p, const ir_recipe *r, const struct pipe_point *pp, uint64_t *ref_bits,
-                           diag_ctx *d) {
+void ans_problem_from_point(ans_problem *p, const ir_recipe *r, const struct pipe_point *pp) {
   memset(p, 0, sizeof *p);
-  p->norb = pp->space.norb;
-  p->nalpha = pp->space.nalpha;
-  p->nbeta = pp->space.nbeta;
+  p->norb = pp->norb;
+  p->nalpha = pp->nalpha;
+  p->nbeta = pp->nbeta;
   p->multiplicity = r->multiplicity > 0 ? r->multiplicity : p->nalpha - p->nbeta + 1;
   p->nmodes = 2 * p->norb;
   p->nqubits = pp->nqubits;
   p->enc = pp->enc;
   p->taper = pp->taper.nsym > 0 ? &pp->taper : NULL;
-  p->H = &pp->ham;
+  p->H = pp->has_ham ? &pp->ham : NULL;
   for (int k = 0; k < IR_SYM_COUNT; k++) p->sym[k] = &pp->sym[k];
-  if (ans_reference_bits(r, pp->enc, p->norb, p->nalpha, p->nbeta, d, ref_bits) != 0) return -1;
-  p->ref_full = ref_bits;
-  const qubit_taper *t = p->taper;
-  if (t) {
-    int nw = pauli_nwords(t->nqubits);
-    for (int i = 0; i < t->nsym; i++) {
-      int par = 0;
-      for (int w = 0; w < nw; w++) par += __builtin_popcountll(t->tau[(size_t)i * (size_t)nw + (size_t)w] & ref_bits[w]);
-      if ((par & 1 ? -1 : 1) != t->sector[i]) {
-        diag_report(d, DIAG_ERROR, r->reference.span,
-                    "the reference bits lie in another symmetry sector (%s) than the Hartree-Fock state the "
-                    "tapering kept",
-                    t->why && t->why[i] ? t->why[i] : "a Z2 symmetry");
-        return -1;
-      }
-    }
-  }
-  return 0;
+  p->ref_full = pp->ref_full;
 }

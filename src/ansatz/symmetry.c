@@ -70,10 +70,13 @@ double ans_type_gen(ans_pool *pool, size_t k, const ans_problem *p, int sym) {
   return worst;
 }
 
+void ans_gen_type(ans_pool *pool, size_t k, const ans_problem *p) {
+  for (int s = 0; s < IR_SYM_COUNT; s++)
+    if (pool->gen[k].sig.sym[s] == ANS_SIG_UNTYPED) ans_type_gen(pool, k, p, s);
+}
+
 void ans_plan_type(ans_plan *pl, const ans_problem *p) {
-  for (size_t i = 0; i < pl->norder; i++)
-    for (int s = 0; s < IR_SYM_COUNT; s++)
-      if (pl->pool.gen[pl->order[i]].sig.sym[s] == ANS_SIG_UNTYPED) ans_type_gen(&pl->pool, pl->order[i], p, s);
+  for (size_t i = 0; i < pl->norder; i++) ans_gen_type(&pl->pool, pl->order[i], p);
 }
 
 /* S|b> for a basis state b: the amplitude on b (the eigenvalue when b is an

@@ -216,6 +216,7 @@ static void check_header(rs *c, ast_file *a, int top) {
   }
 }
 
+/* Step 1: parse a file and append its statements, expanding `use` in place. */
 static void collect(rs *c, int32_t file, int top) {
   ast_file *a = front_parse(c->d, file);
   UTIL_GROW(c->asts, c->capasts, (size_t)c->nasts + 1);
@@ -292,6 +293,7 @@ static void add_name(rs *c, ast_stmt *s, int order, int is_vary) {
   n->cache_point = -1;
 }
 
+/* Step 2: once-only statements, let names, the scanned name. */
 static void scan_statements(rs *c) {
   for (int i = 0; i < c->nst; i++) {
     ast_stmt *s = c->st[i];
@@ -439,6 +441,7 @@ static void resolve_vary(rs *c, ast_stmt *s, int order) {
   c->vary_ok = 1;
 }
 
+/* Step 3: the lets and the vary, in statement order. */
 static void evaluate_names(rs *c) {
   for (int i = 0; i < c->nst; i++) {
     ast_stmt *s = c->st[i];
@@ -479,6 +482,8 @@ static int coordinate(rs *c, const ast_expr *e, ir_unit block, int report_dim, d
   return 0;
 }
 
+/* The atoms block: elements, and each coordinate at every scan point (a
+ * coordinate that does not depend on the scan is computed once). */
 static void resolve_atoms(rs *c) {
   ir_recipe *r = c->r;
   ast_stmt *s = c->one[RS_ATOMS];
@@ -573,6 +578,7 @@ static void resolve_atoms(rs *c) {
   }
 }
 
+/* basis NAME (kept lower-case for chem to look up) or basis file "path". */
 static void resolve_basis(rs *c) {
   ast_stmt *s = c->one[RS_BASIS];
   if (!s) return;
@@ -599,6 +605,8 @@ static void resolve_basis(rs *c) {
   }
 }
 
+/* charge, multiplicity, basis and the integrals path; what they mean together
+ * is settled in space.c. */
 static void resolve_simple_molecule(rs *c) {
   ir_recipe *r = c->r;
   c->cur = c->nst;
@@ -627,6 +635,7 @@ static void resolve_simple_molecule(rs *c) {
   }
 }
 
+/* encoding NAME [taper]. */
 static void resolve_encoding(rs *c) {
   ast_stmt *s = c->one[RS_ENCODING];
   if (!s) return;
@@ -652,6 +661,7 @@ static void resolve_encoding(rs *c) {
   }
 }
 
+/* reference hartree-fock | mean-field | bits TEXT (one bit per qubit). */
 static void resolve_reference(rs *c) {
   ast_stmt *s = c->one[RS_REFERENCE];
   if (!s) return;
@@ -688,6 +698,7 @@ static void resolve_reference(rs *c) {
   ref->bits = xstrndup(t, len);
 }
 
+/* keep SYMMETRY exactly | penalty MU | checked TOL, at most once per symmetry. */
 static void resolve_keeps(rs *c) {
   static const char *const names[] = {"particles", "spin-z", "spin-squared"};
   const ast_stmt *first[IR_SYM_COUNT] = {0};
@@ -883,6 +894,7 @@ static int rule_excite(rs *c, ast_stmt *it, ir_rule *rule) {
   return 0;
 }
 
+/* The pool block, rule by rule; a rule with an error is left out of the IR. */
 static void resolve_pool(rs *c) {
   ast_stmt *s = c->one[RS_POOL];
   if (!s) return;
@@ -912,6 +924,7 @@ static void resolve_pool(rs *c) {
   }
 }
 
+/* choose / grow, order and trotter. */
 static void resolve_selection(rs *c) {
   ir_recipe *r = c->r;
   ast_stmt *s = c->one[RS_CHOOSE];
@@ -952,6 +965,7 @@ static void resolve_selection(rs *c) {
   }
 }
 
+/* optimize METHOD and its settings (defaults in recipe_defaults). */
 static void resolve_optimize(rs *c) {
   ast_stmt *s = c->one[RS_OPTIMIZE];
   if (!s) return;
@@ -1017,6 +1031,8 @@ static void resolve_optimize(rs *c) {
   }
 }
 
+/* emit FORMAT "path": paths relative to the top recipe's directory, one
+ * output per file. */
 static void resolve_emits(rs *c) {
   ir_recipe *r = c->r;
   static const char *const formats[] = {"listing", "qasm2", "qasm3"};
@@ -1064,6 +1080,7 @@ static void resolve_emits(rs *c) {
 
 /* ---- driver ------------------------------------------------------------- */
 
+/* What a recipe means where it says nothing. */
 static void recipe_defaults(ir_recipe *r) {
   r->version = 1;
   r->npoints = 0;
