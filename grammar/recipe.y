@@ -167,11 +167,12 @@ stmt
   | USE STRING NL               { $$ = ast_stmt_name(ast_stmt_new(AST_USE, @1, @2), @2); }
   ;
 
-/* `{` and its newline; a missing `{` is reported and the block read anyway. */
+/* `{` and its newline; without `{` the block is read anyway (the lexer
+ * wrapper reports it). */
 bopen
   : LBRACE NL                   { $$ = @1; }
   | LBRACE error NL             { yyerrok; $$ = @1; }
-  | NL                          { $$ = DIAG_NOWHERE; front_missing_open(p, @1); }
+  | NL                          { $$ = DIAG_NOWHERE; }
   ;
 
 unit_opt

@@ -86,6 +86,16 @@ void ans_setup_free(ans_setup *s);
 int ans_reference_bits(const ir_recipe *r, const qubit_encoder *enc, int norb, int nalpha, int nbeta,
                        diag_ctx *d, uint64_t *out);
 
+/* The problem of one pipeline point (pipe.h) without rebuilding anything:
+ * ref_bits is the caller's buffer (pauli_nwords(2 norb) words) for the
+ * reference bits (ans_reference_bits).  The pipeline tapers in the sector of
+ * the Hartree-Fock state, so `reference bits` in another sector is reported
+ * at the reference (then use ans_setup_init, which tapers in the sector of
+ * the bits).  Returns 0 or -1. */
+struct pipe_point;
+int ans_problem_from_point(ans_problem *p, const ir_recipe *r, const struct pipe_point *pp, uint64_t *ref_bits,
+                           diag_ctx *d);
+
 /* The reference state on the ansatz register. */
 typedef struct ans_reference {
   ir_reference_kind kind;

@@ -13,7 +13,9 @@
  *     dE/dtheta_p = sum over rotations k using p of  mult_k Im <lambda_k|P_k|phi_k>,
  * phi_k = R_k..R_1|init>, lambda_k = R_{k+1}^dag..R_K^dag O|psi>.  Cost: about
  * 2 * (rotations) passes over 2^n amplitudes plus one application of O; two
- * vectors of memory.
+ * vectors of memory (and the objective's diagonal, half a vector).  A run of
+ * rotations with one parameter and one X mask (a Jordan-Wigner excitation's
+ * words) is one fused step that touches only the pairs it connects (sv_gen).
  *
  * This is a noise-free statevector simulation: energies are what an ideal
  * device with exact expectation values would give, not a hardware estimate.
@@ -37,10 +39,11 @@
 
 typedef struct sim_engine sim_engine;
 
-/* Vectors the engine allocates (for memory estimates before building). */
+/* Vectors the engine allocates (for memory estimates before building); it
+ * also tabulates the objective's diagonal (half a vector, SV_DIAG_BYTES). */
 #define SIM_VECTORS 2
 
-/* Memory the engine needs for circuit c and an objective of `terms` terms. */
+/* Memory the engine needs for n qubits and an objective of `terms` terms. */
 uint64_t sim_engine_bytes(int nqubits, size_t terms);
 
 /* Build an engine for circuit c with objective O (same qubit count).  Checks
@@ -56,8 +59,9 @@ size_t sim_engine_rotations(const sim_engine *e);
  * parameter and an X mask (a Jordan-Wigner excitation becomes one step). */
 size_t sim_engine_steps(const sim_engine *e);
 
-/* Objective at theta (nparams values): forward pass, one expectation value.
- * Leaves |psi(theta)> as the engine's current state. */
+/* Objective at theta (nparams values): forward pass, one application of O
+ * (the same sums as sim_energy_grad, so the same bits).  Leaves |psi(theta)>
+ * as the engine's current state. */
 double sim_energy(sim_engine *e, const double *theta);
 /* Objective and its gradient (grad: nparams values).  Afterwards the current
  * state is no longer |psi(theta)> (the backward pass unwinds it); call
@@ -66,8 +70,23 @@ double sim_energy_grad(sim_engine *e, const double *theta, double *grad);
 /* Make the current state |psi(theta)>; returns it (owned by the engine, valid
  * until the next call on e). */
 const sv_state *sim_prepare(sim_engine *e, const double *theta);
+/* The circuit's initial parameter values (ans_circuit.param_init: optimized
+ * mean-field angles for reference parameters, 0 for generator amplitudes;
+ * all 0 when the circuit has none).  nparams values, owned by the engine. */
+const double *sim_engine_initial(const sim_engine *e);
 /* Evaluations so far (sim_energy and sim_energy_grad calls). */
 long sim_engine_evaluations(const sim_engine *e);
+
+/* Gradients for adaptive growth: for each candidate generator c (words
+ * off[c] .. off[c]+len[c]-1 of `words`, real coefficients m_k, as in
+ * ans_pool), the derivative at t = 0 of the objective with exp(-i t G_c/2)
+ * appended after the program at theta:
+ *     g_c = (i/2) <psi|[G_c, O]|psi> = sum_k m_k Im <O psi|P_k|psi>.
+ * One forward pass and one O|psi>, then one read-only pass per word (one per
+ * candidate when its words fuse).  Returns 0, or -1 with a message in err
+ * (a word wider than the register). */
+int sim_candidate_gradients(sim_engine *e, const double *theta, const pauli_sum *words, const size_t *off,
+                            const size_t *len, size_t ncand, double *out, char *err, size_t errlen);
 
 /* A compiled observable (N, S_z, S^2, H without penalties, ...) for
  * expectation values on the current state. */
@@ -76,6 +95,11 @@ sv_op *sim_observable(const sim_engine *e, const pauli_sum *s, char *err, size_t
  * sim_prepare call (re-prepared first when a gradient pass unwound it); the
  * real part (the sums are Hermitian). */
 double sim_expect(sim_engine *e, const sv_op *op);
+
+/* objective += mu (X - x0)^2 for a Hermitian X (N, S_z, S^2): the term of
+ * `keep ... penalty mu`, whose gradient the adjoint pass then includes.  The
+ * result is canonical (pauli_sum_canonicalize, exact zeros dropped). */
+void sim_add_penalty(pauli_sum *objective, const pauli_sum *X, double x0, double mu);
 
 /* ---- optimizer --------------------------------------------------------------- */
 
@@ -92,10 +116,12 @@ typedef struct sim_opt_options {
   ir_method method;        /* lbfgs (default), slsqp, bobyqa, cobyla, nelder-mead */
   double tolerance;        /* stop when the objective changes less than this (hartree); <= 0: 1e-8 */
   int max_evals;           /* most objective evaluations per start; <= 0: 1000 */
-  /* Starts: first the given vectors in order (a NULL vector = all zeros), then
-   * `nrandom` random ones, each uniform in [-random_range, random_range]
-   * radians per parameter from util_rng seeded by (seed, start index), so a
-   * start does not depend on how many others there are. */
+  /* Starts: first the given vectors in order (a NULL vector = the circuit's
+   * initial values, sim_engine_initial: zero amplitudes, mean-field angles as
+   * optimized for the reference), then `nrandom` random ones: the initial
+   * values plus, per parameter, a uniform offset in [-random_range,
+   * random_range] radians from util_rng seeded by (seed, random start index),
+   * so a start does not depend on how many others there are. */
   const double *const *given;
   const char *const *given_label; /* names for the report ("zeros", "warm"), may be NULL */
   int ngiven;
@@ -135,7 +161,9 @@ typedef struct sim_start {
   sim_stop stop;
   int converged;        /* 1 for SIM_STOP_TOLERANCE and SIM_STOP_NO_PARAMS */
   int nlopt_code;       /* NLopt's result code (0 for SIM_STOP_NO_PARAMS) */
-  double *trace;        /* evals entries: objective at each evaluation, in order */
+  double *trace;        /* evals entries: objective at each evaluation, in order
+                           (NLopt does not expose iterations; line searches show as
+                           evaluations that did not improve) */
   double seconds;
 } sim_start;
 

@@ -82,10 +82,13 @@ double complex sv_word_inner(const sv_state *a, uint64_t x, uint64_t z, const sv
 double complex sv_word_inner_rotate2(sv_state *l, sv_state *p, uint64_t x, uint64_t z, double theta);
 
 /* A compiled Pauli sum: terms grouped by X mask, each group's Y phases folded
- * into its coefficients, and the Z masks split into a high part (evaluated by
- * parity once per block of amplitudes) and a low part (a table of signs), so
- * one pass over the vector per block serves every group.  Any complex
- * coefficients; expectation values of Hermitian sums are real up to rounding. */
+ * into its coefficients.  Each group's rows are split into sub-cubes by the
+ * values of its X bits; on a sub-cube the terms that differ only there merge
+ * exactly, and sub-cubes where they cancel (X_p X_q + Y_p Y_q-type pairs of
+ * fermionic Hamiltonians) are skipped.  Inside a sub-cube, Z phases come from
+ * one parity per block of 64 rows and a table of signs.  Any complex
+ * coefficients; expectation values of Hermitian sums are real up to rounding.
+ * Threads own fixed chunks of rows, so results do not depend on the team. */
 typedef struct sv_op sv_op;
 
 /* Compile s (not kept).  Returns NULL with a message in err when the sum is
@@ -99,12 +102,19 @@ uint64_t sv_op_bytes(const sv_op *op); /* memory of the tables */
 /* Upper bound of sv_op_bytes for a sum of `terms` terms, for memory checks
  * before compiling. */
 uint64_t sv_op_bytes_bound(size_t terms);
-/* <psi|op|psi> (not normalized by <psi|psi>). */
+/* Tabulate the diagonal part (the group of X mask 0) once, 8 * 2^n bytes
+ * (a real diagonal only; a complex one stays computed), so that each
+ * application reads it instead of summing its terms.  Returns 0, or -1 when
+ * there is nothing to cache.  Callers count SV_DIAG_BYTES(n) in their memory
+ * check first. */
+int sv_op_cache_diagonal(sv_op *op);
+#define SV_DIAG_BYTES(n) ((uint64_t)8 << (n))
+/* <psi|op|psi> (not normalized by <psi|psi>); sums in another order than
+ * sv_op_apply, so the two agree to rounding, not bit for bit. */
 double complex sv_op_expect(const sv_op *op, const sv_state *psi);
 /* out = op psi (out != psi, same n).  Returns <psi|op|psi>, which the same
  * pass computes. */
 double complex sv_op_apply(const sv_op *op, const sv_state *psi, sv_state *out);
-
 
 /* A fused generator: G = sum_k m_k P_k of words sharing one X mask that
  * commute pairwise, with real multipliers, applied as one unitary

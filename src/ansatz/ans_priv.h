@@ -69,7 +69,8 @@ typedef struct ans_tally {
   size_t made;                       /* generators it added to the pool */
   size_t tried;                      /* generators it proposed */
   size_t vanished, vanished_taper;   /* zero in the encoding / after tapering */
-  size_t dup;                        /* copies of earlier generators, dropped */
+  size_t dup;                        /* copies involving an explicit generator, dropped */
+  size_t dup_quiet;                  /* copies between rule families, dropped quietly */
   long dup_of;                       /* pool index of the first one copied */
   size_t *z2_drop;                   /* per removed Z2: generators dropped */
   char *z2_text;                     /* text of the first generator dropped by a Z2 */

@@ -34,6 +34,7 @@ typedef struct fs_sort {
   const uint64_t *zero;
 } fs_sort;
 
+/* Flip sets in the canonical order of their X words (weight, then qubits). */
 static int cmp_flipsets(const void *a, const void *b, void *arg) {
   const fs_sort *c = arg;
   size_t i = *(const size_t *)a, j = *(const size_t *)b;
@@ -51,6 +52,8 @@ typedef struct cand_eval {
   double complex *mx, *my;  /* nt*m */
 } cand_eval;
 
+/* Precompute, for every term of f's group, the factor off f and the two
+ * per-qubit factors on f, so that each candidate costs |group| * |f|. */
 static void cand_init(cand_eval *ce, const ans_screen *s, const uint64_t *f, const int *pos, int m) {
   size_t len;
   const uint32_t *grp = ans_screen_group(s, f, &len);
@@ -125,6 +128,9 @@ static int better(double g, const unsigned char *y, long long bestkey, const uns
   return k > bestkey || (k == bestkey && pattern_before(y, best, m));
 }
 
+/* The best odd-Y pattern on a flip set with tilted qubits: exhaustive up to
+ * ANS_EXHAUSTIVE_MAX qubits, else single-Y patterns then first-improvement
+ * pair swaps within ANS_SEARCH_BUDGET evaluations.  best gets the pattern. */
 static void search(const cand_eval *ce, unsigned char *best) {
   int m = ce->m;
   unsigned char *y = xcalloc((size_t)m, 1);
@@ -173,6 +179,8 @@ static void search(const cand_eval *ce, unsigned char *best) {
   free(y);
 }
 
+/* The `entanglers` rule: every flip set of H (hash over X-masks, canonical
+ * order), its representative word and gradient, into the pool. */
 void ans_rule_entanglers(ans_build *b, const ir_rule *rule) {
   (void)rule;
   ans_tally *t = &b->tally[b->rule];

@@ -65,6 +65,7 @@ static int gen_same(const pauli_sum *w, size_t oa, size_t la, const pauli_sum *v
   return 1;
 }
 
+/* Rebuild the duplicate table over the pool (open addressing). */
 static void dd_rehash(ans_build *b, size_t nslots) {
   free(b->dd.slot);
   b->dd.slot = xcalloc(nslots, sizeof *b->dd.slot);
@@ -107,7 +108,15 @@ static long append_gen(ans_build *b, const ans_gen_info *info, const pauli_sum *
   size_t slot = 0;
   long dup = dd_find(b, G, 0, G->len, &slot);
   if (dup >= 0) {
-    if (t->dup++ == 0) t->dup_of = dup;
+    /* Overlapping rule families (pair doubles within doubles, ...) are a
+     * normal way to compose a pool: their copies go quietly.  A copy that
+     * involves an explicit word or excitation is worth a warning. */
+    ir_rule_kind k0 = b->r->rules[pool->gen[dup].info.rule].kind, k1 = b->r->rules[b->rule].kind;
+    if (k0 == IR_RULE_WORD || k0 == IR_RULE_EXCITE || k1 == IR_RULE_WORD || k1 == IR_RULE_EXCITE) {
+      if (t->dup++ == 0) t->dup_of = dup;
+    } else {
+      t->dup_quiet++;
+    }
     return -1;
   }
   UTIL_GROW(pool->gen, pool->cap, pool->len + 1);
@@ -154,11 +163,22 @@ static long append_gen(ans_build *b, const ans_gen_info *info, const pauli_sum *
 }
 
 /* Real coefficients: G is Hermitian by construction, so imaginary parts are
- * rounding only. */
+ * rounding only.  The identity word is dropped: exp(-i theta c I / 2) is only
+ * a global phase. */
 static void make_real(pauli_sum *G) {
-  for (size_t k = 0; k < G->len; k++) G->c[k] = creal(G->c[k]);
+  size_t m = 0;
+  for (size_t k = 0; k < G->len; k++) {
+    if (pauli_word_is_identity(G->nw, pauli_sum_x(G, k), pauli_sum_z(G, k))) continue;
+    if (m != k) {
+      memcpy(pauli_sum_x(G, m), pauli_sum_x(G, k), (size_t)G->nw * sizeof(uint64_t));
+      memcpy(pauli_sum_z(G, m), pauli_sum_z(G, k), (size_t)G->nw * sizeof(uint64_t));
+    }
+    G->c[m++] = creal(G->c[k]);
+  }
+  G->len = m;
 }
 
+/* Does every word of G commute with the Z word tau (even overlap of X parts)? */
 static int commutes_with_z(int nw, const pauli_sum *G, const uint64_t *tau) {
   for (size_t k = 0; k < G->len; k++) {
     const uint64_t *x = pauli_sum_x(G, k);
@@ -182,11 +202,17 @@ void ans_add_full(ans_build *b, const ans_gen_info *info, pauli_sum *G) {
   const qubit_taper *tp = b->p->taper;
   if (tp && tp->nsym > 0) {
     int nw = pauli_nwords(tp->nqubits);
-    for (int i = 0; i < tp->nsym; i++)
+    const ir_rule_kind rk = b->r->rules[b->rule].kind;
+    int explicit = rk == IR_RULE_WORD || rk == IR_RULE_EXCITE, dropped = 0;
+    /* a rule-made generator is counted under the first symmetry it breaks,
+     * an explicit one under every one (its error names them all) */
+    for (int i = 0; i < tp->nsym && (explicit || !dropped); i++)
       if (!commutes_with_z(nw, G, tp->tau + (size_t)i * (size_t)nw)) {
-        if (t->z2_drop[i]++ == 0 && !t->z2_text) t->z2_text = xstrdup(info->text ? info->text : "");
-        return;
+        if (!t->z2_text) t->z2_text = xstrdup(info->text ? info->text : "");
+        t->z2_drop[i]++;
+        dropped = 1;
       }
+    if (dropped) return;
     pauli_sum Gt;
     pauli_sum_init(&Gt, b->p->nqubits);
     if (qubit_taper_apply(tp, G, &Gt) != 0) {

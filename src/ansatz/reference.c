@@ -46,6 +46,8 @@ typedef struct mf_terms {
   double *pre, *suf, *f;  /* scratch, maxw + 1 */
 } mf_terms;
 
+/* Flatten H into support lists (qubit, letter) per term; the identity goes
+ * to the constant. */
 static void mf_terms_init(mf_terms *m, const pauli_sum *H) {
   memset(m, 0, sizeof *m);
   m->n = H->n;

@@ -80,6 +80,7 @@ static void qubit_generator(const ans_build *b, int k, const int *from, const in
   pauli_sum_free(&tmp);
 }
 
+/* One excitation of the given kind, built and handed to ans_add_full. */
 static void add_excitation(ans_build *b, ans_kind kind, int k, const int *from, const int *to) {
   ans_gen_info info;
   memset(&info, 0, sizeof info);
@@ -128,6 +129,8 @@ static void add_spin_adapted(ans_build *b, int i, int a, int alpha, int beta) {
   }
 }
 
+/* Singles (fermionic or qubit): occupied -> virtual of the same spin, or all
+ * pairs with `generalized`; spin-adapted pairs with `spin-adapted`. */
 static void singles_like(ans_build *b, const ir_rule *rule, ans_kind kind) {
   int n = b->p->nmodes;
   unsigned char *occ = ref_occupations(b);
@@ -155,6 +158,9 @@ static void singles_like(ans_build *b, const ir_rule *rule, ans_kind kind) {
   free(occ);
 }
 
+/* Doubles (fermionic or qubit): spin-conserving occupied pair -> virtual
+ * pair; `generalized`: every unordered pair of disjoint pairs; `paired`: pair
+ * moves i_alpha i_beta -> a_alpha a_beta. */
 static void doubles_like(ans_build *b, const ir_rule *rule, ans_kind kind) {
   int n = b->p->nmodes;
   unsigned char *occ = ref_occupations(b);
@@ -196,6 +202,7 @@ static void rule_doubles(ans_build *b, const ir_rule *rule) { doubles_like(b, ru
 static void rule_qubit_singles(ans_build *b, const ir_rule *rule) { singles_like(b, rule, ANS_QUBIT_SINGLE); }
 static void rule_qubit_doubles(ans_build *b, const ir_rule *rule) { doubles_like(b, rule, ANS_QUBIT_DOUBLE); }
 
+/* `word`: the written Pauli word on the full register. */
 static void rule_word(ans_build *b, const ir_rule *rule) {
   int n = b->p->nmodes, nw = pauli_nwords(n);
   uint64_t *x = xcalloc((size_t)nw, sizeof *x), *z = xcalloc((size_t)nw, sizeof *z);
@@ -231,6 +238,7 @@ static void rule_word(ans_build *b, const ir_rule *rule) {
   free(z);
 }
 
+/* `excite`: the written excitation (1 to 4 electrons), pool.h convention. */
 static void rule_excite(ans_build *b, const ir_rule *rule) {
   int n = b->p->nmodes, k = rule->nexcite;
   if (k < 1 || k > 4) {

@@ -18,6 +18,8 @@
 #include <stdlib.h>
 #include <string.h>
 
+/* Bloch vectors of the reference, the tilted mask, and H's terms grouped by
+ * X-mask outside the tilted qubits (hash, then a counting sort). */
 void ans_screen_init(ans_screen *s, const pauli_sum *H, const ans_reference *ref) {
   memset(s, 0, sizeof *s);
   s->H = H;
@@ -123,6 +125,8 @@ double ans_screen_expect(const ans_screen *s, const uint64_t *x, const uint64_t 
   return expect_grouped(s, x, z);
 }
 
+/* (i/2)<[P, H]> = Re(i sum_h c_h i^k <P h>) over the anticommuting terms of
+ * P's group (P h = i^k w). */
 double ans_screen_word(const ans_screen *s, const uint64_t *x, const uint64_t *z) {
   static const double complex ip[4] = {1, I, -1, -I};
   size_t len;

@@ -22,6 +22,8 @@ typedef struct sel_ctx {
   int mode;
 } sel_ctx;
 
+/* Order of two pool indices: by rank, then by |gradient| key, then pool
+ * order, as the mode asks. */
 static int cmp_sel(const void *a, const void *b, void *arg) {
   const sel_ctx *c = arg;
   size_t i = *(const size_t *)a, j = *(const size_t *)b;

@@ -3,6 +3,7 @@
 #include "config.h"
 
 #include "ans_priv.h"
+#include "cairn/pipe.h"
 #include "cairn/util.h"
 
 #include <stdlib.h>
@@ -95,5 +96,38 @@ int ans_setup_init(ans_setup *s, const ir_recipe *r, const chem_space *cs, diag_
   }
   for (int k = 0; k < IR_SYM_COUNT; k++) pauli_sum_free(&full[k]);
   p->H = s->has_h ? &s->H : NULL;
+  return 0;
+}
+
+int ans_problem_from_point(ans_problem *p, const ir_recipe *r, const struct pipe_point *pp, uint64_t *ref_bits,
+                           diag_ctx *d) {
+  memset(p, 0, sizeof *p);
+  p->norb = pp->space.norb;
+  p->nalpha = pp->space.nalpha;
+  p->nbeta = pp->space.nbeta;
+  p->multiplicity = r->multiplicity > 0 ? r->multiplicity : p->nalpha - p->nbeta + 1;
+  p->nmodes = 2 * p->norb;
+  p->nqubits = pp->nqubits;
+  p->enc = pp->enc;
+  p->taper = pp->taper.nsym > 0 ? &pp->taper : NULL;
+  p->H = &pp->ham;
+  for (int k = 0; k < IR_SYM_COUNT; k++) p->sym[k] = &pp->sym[k];
+  if (ans_reference_bits(r, pp->enc, p->norb, p->nalpha, p->nbeta, d, ref_bits) != 0) return -1;
+  p->ref_full = ref_bits;
+  const qubit_taper *t = p->taper;
+  if (t) {
+    int nw = pauli_nwords(t->nqubits);
+    for (int i = 0; i < t->nsym; i++) {
+      int par = 0;
+      for (int w = 0; w < nw; w++) par += __builtin_popcountll(t->tau[(size_t)i * (size_t)nw + (size_t)w] & ref_bits[w]);
+      if ((par & 1 ? -1 : 1) != t->sector[i]) {
+        diag_report(d, DIAG_ERROR, r->reference.span,
+                    "the reference bits lie in another symmetry sector (%s) than the Hartree-Fock state the "
+                    "tapering kept",
+                    t->why && t->why[i] ? t->why[i] : "a Z2 symmetry");
+        return -1;
+      }
+    }
+  }
   return 0;
 }

@@ -282,29 +282,60 @@ void ans_rule_messages(ans_build *b) {
     ans_tally *t = &b->tally[i];
     char *rt = rule_text(b, rule);
     symmetry_errors(b, i);
-    if (tp)
-      for (int k = 0; k < tp->nsym; k++) {
+    if (tp && is_explicit(rule)) {
+      util_buf syms = {0}, words = {0};
+      int nf = 0, last = -1;
+      for (int k = 0; k < tp->nsym; k++)
+        if (t->z2_drop[k]) nf++, last = k;
+      for (int k = 0, seen = 0; k < tp->nsym; k++) {
         if (!t->z2_drop[k]) continue;
         char *zt = z_text(tp->nqubits, tp->tau + (size_t)k * (size_t)pauli_nwords(tp->nqubits));
         const char *why = tp->why && tp->why[k] ? tp->why[k] : "a symmetry of the Hamiltonian";
-        if (is_explicit(rule)) {
-          diag_report(d, DIAG_ERROR, rule->span,
-                      "`%s` does not commute with the tapered symmetry %s (%s), so it cannot act on the tapered "
-                      "register",
-                      rt, zt, why);
-          diag_note(d, r->encoding_span, "the encoding removes that symmetry here");
-          diag_help(d, "drop `taper`, or use a generator that commutes with %s", zt);
-          t->had_error = 1;
-        } else {
-          diag_report(d, DIAG_WARNING, rule->span,
-                      "%zu generator%s of `%s` do%s not commute with the tapered symmetry %s (%s) and %s dropped",
-                      t->z2_drop[k], t->z2_drop[k] == 1 ? "" : "s", rt, t->z2_drop[k] == 1 ? "es" : "",
-                      zt, why, t->z2_drop[k] == 1 ? "is" : "are");
-          diag_note(d, r->encoding_span, "the encoding removes that symmetry here");
-          if (t->z2_text) diag_note(d, DIAG_NOWHERE, "the first is %s", t->z2_text);
-        }
+        util_buf_printf(&syms, "%s%s (%s)", seen == 0 ? "" : k == last ? " and " : ", ", zt, why);
+        util_buf_printf(&words, "%s%s", seen == 0 ? "" : k == last ? " and " : ", ", zt);
+        seen++;
         free(zt);
       }
+      if (nf) {
+        diag_report(d, DIAG_ERROR, rule->span,
+                    "`%s` does not commute with the tapered symmetr%s %s, so it cannot act on the tapered register", rt,
+                    nf == 1 ? "y" : "ies", syms.s);
+        diag_note(d, r->encoding_span, "the encoding removes %s here", nf == 1 ? "that symmetry" : "those symmetries");
+        diag_help(d, "drop `taper`, or use a generator that commutes with %s", words.s);
+        t->had_error = 1;
+      }
+      util_buf_free(&syms);
+      util_buf_free(&words);
+    } else if (tp) {
+      /* one warning per rule: how many, and under which symmetry (the first
+       * each generator breaks) */
+      size_t total = 0;
+      int nf = 0, last = -1;
+      for (int k = 0; k < tp->nsym; k++)
+        if (t->z2_drop[k]) total += t->z2_drop[k], nf++, last = k;
+      if (nf) {
+        util_buf what = {0};
+        for (int k = 0, seen = 0; k < tp->nsym; k++) {
+          if (!t->z2_drop[k]) continue;
+          char *zt = z_text(tp->nqubits, tp->tau + (size_t)k * (size_t)pauli_nwords(tp->nqubits));
+          const char *why = tp->why && tp->why[k] ? tp->why[k] : "a symmetry of the Hamiltonian";
+          if (nf == 1) util_buf_printf(&what, "the tapered symmetry %s (%s)", zt, why);
+          else util_buf_printf(&what, "%s%zu with %s (%s)", seen == 0 ? "" : k == last ? " and " : ", ", t->z2_drop[k], zt, why);
+          seen++;
+          free(zt);
+        }
+        if (nf == 1)
+          diag_report(d, DIAG_WARNING, rule->span, "%zu generator%s of `%s` do%s not commute with %s and %s dropped", total,
+                      total == 1 ? "" : "s", rt, total == 1 ? "es" : "", what.s, total == 1 ? "is" : "are");
+        else
+          diag_report(d, DIAG_WARNING, rule->span,
+                      "%zu generators of `%s` do not commute with the tapered symmetries and are dropped: %s", total, rt,
+                      what.s);
+        util_buf_free(&what);
+        diag_note(d, r->encoding_span, "the encoding removes %s here", nf == 1 ? "that symmetry" : "those symmetries");
+        if (t->z2_text) diag_note(d, DIAG_NOWHERE, "the first is %s", t->z2_text);
+      }
+    }
     if (t->vanished) {
       if (is_explicit(rule))
         diag_report(d, DIAG_WARNING, rule->span, "`%s` is the zero operator and is dropped", rt);
@@ -314,7 +345,8 @@ void ans_rule_messages(ans_build *b) {
     }
     if (t->vanished_taper) {
       if (is_explicit(rule))
-        diag_report(d, DIAG_WARNING, rule->span, "`%s` vanishes on the tapered register and is dropped", rt);
+        diag_report(d, DIAG_WARNING, rule->span,
+                    "`%s` vanishes on the tapered register (at most a global phase is left) and is dropped", rt);
       else
         diag_report(d, DIAG_WARNING, rule->span, "%zu generators of `%s` vanish on the tapered register and are dropped",
                     t->vanished_taper, rt);
@@ -328,17 +360,26 @@ void ans_rule_messages(ans_build *b) {
                     g0->info.text, ot);
       else
         diag_report(d, DIAG_WARNING, rule->span,
-                    "%zu generator%s of `%s` duplicate%s earlier ones and %s dropped", t->dup, t->dup == 1 ? "" : "s",
-                    rt, t->dup == 1 ? "s" : "", t->dup == 1 ? "is" : "are");
+                    "%zu generator%s of `%s` duplicate%s explicit generators and %s dropped", t->dup,
+                    t->dup == 1 ? "" : "s", rt, t->dup == 1 ? "s" : "", t->dup == 1 ? "is" : "are");
       diag_note(d, g0->span, "%s first made by `%s` here", g0->info.text, ot);
       free(ot);
     }
     if (!t->unexpanded && !t->had_error && t->made == 0) {
       if (t->tried == 0)
         diag_report(d, DIAG_WARNING, rule->span, "`%s` makes no generators for this reference and active space", rt);
-      else if (!is_explicit(rule))
-        diag_report(d, DIAG_WARNING, rule->span, "no generator of `%s` survives (%zu made, all dropped)", rt,
-                    t->tried);
+      else if (!is_explicit(rule)) {
+        size_t z2 = 0;
+        if (tp)
+          for (int k = 0; k < tp->nsym; k++) z2 += t->z2_drop[k];
+        util_buf why = {0};
+        if (t->dup + t->dup_quiet) util_buf_printf(&why, ", %zu copies of earlier generators", t->dup + t->dup_quiet);
+        if (z2) util_buf_printf(&why, ", %zu breaking a tapered symmetry", z2);
+        if (t->vanished + t->vanished_taper) util_buf_printf(&why, ", %zu zero", t->vanished + t->vanished_taper);
+        diag_report(d, DIAG_WARNING, rule->span, "no generator of `%s` survives (%zu proposed%s)", rt, t->tried,
+                    why.s ? why.s : "");
+        util_buf_free(&why);
+      }
     }
     free(rt);
   }

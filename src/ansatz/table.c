@@ -54,8 +54,12 @@ void ans_table_print(const ans_plan *pl, const ir_recipe *r, const ans_problem *
   const ans_pool *pool = &pl->pool;
   int tapered = p->taper && p->taper->nsym > 0;
   char *ct = choose_text(r);
-  fprintf(out, "%s: %zu generator%s chosen from a pool of %zu (%s, %s)\n", r->path ? r->path : "recipe",
-          pl->norder, pl->norder == 1 ? "" : "s", pool->len, ct, order_text(r));
+  if (pl->grow)
+    fprintf(out, "%s: a pool of %zu generator%s, ranked by |gradient| for `%s` (the run picks)\n",
+            r->path ? r->path : "recipe", pool->len, pool->len == 1 ? "" : "s", ct);
+  else
+    fprintf(out, "%s: %zu generator%s chosen from a pool of %zu (%s, %s)\n", r->path ? r->path : "recipe",
+            pl->norder, pl->norder == 1 ? "" : "s", pool->len, ct, order_text(r));
   free(ct);
   fprintf(out, "encoding %s, %d qubits", enc_name(r->encoding), p->nqubits);
   if (tapered) fprintf(out, " (%d removed by tapering)", p->taper->nsym);
@@ -65,8 +69,6 @@ void ans_table_print(const ans_plan *pl, const ir_recipe *r, const ans_problem *
   fputc('\n', out);
   if (pl->screened)
     fprintf(out, "gradient = dE/dtheta at the reference (exact, noise-free, for the active-space Hamiltonian)\n");
-  if (pl->grow)
-    fprintf(out, "`grow` picks generators during the run; the pool is listed by |gradient| at the reference\n");
   if (r->scan.active && r->npoints > 1)
     fprintf(out, "scan point 1 of %d (%s = %g)\n", r->npoints, r->scan.name ? r->scan.name : "?", r->points[0].param);
   size_t tw = 9;
@@ -81,7 +83,7 @@ void ans_table_print(const ans_plan *pl, const ir_recipe *r, const ans_problem *
     const ans_gen *g = &pool->gen[pl->order[i]];
     char gb[40];
     if (isnan(g->gradient)) snprintf(gb, sizeof gb, "-");
-    else snprintf(gb, sizeof gb, "%.10f", g->gradient);
+    else snprintf(gb, sizeof gb, "%.10f", fabs(g->gradient) < 5e-11 ? 0.0 : g->gradient); /* no "-0.0000000000" */
     fprintf(out, "%5zu  %-12s  %-*s  %16s  %-3s %-3s %-3s%s%s %5d %5d\n", i, ans_kind_name(g->info.kind), (int)tw,
             g->info.text, gb, sig_mark(g->sig.sym[0]), sig_mark(g->sig.sym[1]), sig_mark(g->sig.sym[2]),
             tapered ? " " : "", tapered ? sig_mark(g->sig.z2) : "", g->cnot, g->info.line);
@@ -96,7 +98,6 @@ static void add_bool_or_absent(cJSON *o, const char *k, int v) {
 }
 
 cJSON *ans_table_json(const ans_plan *pl, const ir_recipe *r, const ans_problem *p, const diag_ctx *d) {
-  (void)d;
   const ans_pool *pool = &pl->pool;
   int tapered = p->taper && p->taper->nsym > 0;
   cJSON *o = cJSON_CreateObject();
@@ -138,6 +139,8 @@ cJSON *ans_table_json(const ans_plan *pl, const ir_recipe *r, const ans_problem 
     cJSON_AddNumberToObject(e, "cnot", g->cnot);
     cJSON_AddNumberToObject(e, "rank", g->rank);
     cJSON_AddNumberToObject(e, "line", g->info.line);
+    if (d && g->span.file >= 0 && r->path && strcmp(diag_file_path(d, g->span.file), r->path) != 0)
+      cJSON_AddStringToObject(e, "file", diag_file_path(d, g->span.file));
     if (g->info.nexc > 0) {
       cJSON *f = cJSON_CreateArray(), *t = cJSON_CreateArray();
       for (int k = 0; k < g->info.nexc; k++) {

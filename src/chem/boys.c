@@ -20,7 +20,7 @@
 
 enum { BOYS_TAYLOR = 6, BOYS_MTAB = INT_BOYS_MMAX + BOYS_TAYLOR + 1 };
 #define BOYS_TMAX 36.0
-#define BOYS_H 0.05
+#define BOYS_H 0.025
 
 struct int_boys {
   int npts;

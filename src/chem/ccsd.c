@@ -376,7 +376,7 @@ int chem_ccsd(const chem_space *s, diag_ctx *d, chem_refs *refs) {
       }
     }
     e = cc_energy(c, t1, t2);
-    if (fabs(e - eold) < 1e-10 && rms < 1e-8) {
+    if (fabs(e - eold) < 1e-12 && rms < 1e-10) {
       converged = 1;
       break;
     }

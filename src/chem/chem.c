@@ -94,7 +94,7 @@ static int build_from_atoms(const ir_recipe *r, int point, diag_ctx *d, chem_spa
   char where[160];
   point_label(r, point, where, sizeof where);
   diag_span at = r->natoms > 0 ? pt->atoms[0].span : r->basis_span;
-  if (na + nb != ne || nb < 0) {
+  if (mult < 1 || (ne + mult - 1) % 2 != 0 || mult - 1 > ne) {
     diag_report(d, DIAG_ERROR, r->basis_span, "%d electrons cannot have multiplicity %d", ne, mult);
     int_basis_free(&ib);
     basis_set_free(&bs);

@@ -333,25 +333,42 @@ static void op_apply(const op *o, const double *c, double *out) {
   for (long i = 0; i < N; i++) out[i] += o->mu * (o->tmp2[i] - o->s2t * o->tmp[i]);
 }
 
-/* Lowest eigenpair of the operator by Davidson with diagonal preconditioner.
- * Returns 0 when converged.  x gets the normalized vector. */
-static int davidson(const op *o, const double *hd, long N, double *x, double *theta_out, int *iters) {
-  int maxdim = N > 20000000 ? 8 : 20;
+/* Indices of the k smallest entries of v (not in skip[0..nskip-1]) into
+ * out[0..k-1], in increasing order of v; one pass with a small sorted list. */
+static int lowest_k(const double *v, long N, int k, const long *skip, int nskip, long *out) {
+  int have = 0;
+  for (long i = 0; i < N; i++) {
+    int used = 0;
+    for (int h = 0; h < nskip; h++) used |= skip[h] == i;
+    if (used || (have == k && v[i] >= v[out[have - 1]])) continue;
+    int pos = have < k ? have++ : k - 1;
+    while (pos > 0 && v[out[pos - 1]] > v[i]) {
+      out[pos] = out[pos - 1];
+      pos--;
+    }
+    out[pos] = i;
+  }
+  return have;
+}
+
+/* Lowest eigenpair of the operator by Davidson with diagonal preconditioner
+ * hd (the diagonal of H).  Start vectors: unit vectors on the lowest entries
+ * of hd and, with a spin penalty, as many again on the lowest entries of hp
+ * (hd plus the penalty of each determinant's diagonal S^2; also the
+ * preconditioner then, as it follows the large penalty), so that the
+ * start space holds both the low-energy configurations and those of the
+ * target spin.  Returns 0 when converged; x gets the normalized vector. */
+static int davidson(const op *o, const double *hd, const double *hp, long N, double *x, double *theta_out,
+                    int *iters) {
+  int maxdim = N > 20000000 ? 10 : 24;
   if (maxdim > N) maxdim = (int)N;
   double *V = xmalloc((size_t)maxdim * N * sizeof(double)), *HV = xmalloc((size_t)maxdim * N * sizeof(double));
   double *r = xmalloc((size_t)N * sizeof(double));
-  int nguess = N < 4 ? (int)N : 4;
-  /* guesses: unit vectors on the lowest diagonal elements */
-  long *low = xmalloc((size_t)nguess * sizeof(long));
-  for (int g = 0; g < nguess; g++) {
-    long best = -1;
-    for (long i = 0; i < N; i++) {
-      int used = 0;
-      for (int h = 0; h < g; h++) used |= low[h] == i;
-      if (!used && (best < 0 || hd[i] < hd[best])) best = i;
-    }
-    low[g] = best;
-  }
+  int half = maxdim / (hp ? 4 : 2);
+  if (half < 1) half = 1;
+  long low[64];
+  int nguess = lowest_k(hd, N, half, NULL, 0, low);
+  if (hp) nguess += lowest_k(hp, N, half, low, nguess, low + nguess);
   int m = 0;
   for (int g = 0; g < nguess; g++) {
     memset(V + (size_t)m * N, 0, N * sizeof(double));
@@ -359,7 +376,6 @@ static int davidson(const op *o, const double *hd, long N, double *x, double *th
     op_apply(o, V + (size_t)m * N, HV + (size_t)m * N);
     m++;
   }
-  free(low);
   double Hs[64 * 64], ev[64 * 64], w[64];
   double theta = 0, old = 1e300;
   int conv = 0, it;
@@ -400,7 +416,7 @@ static int davidson(const op *o, const double *hd, long N, double *x, double *th
     /* correction (theta - Hd)^-1 r, orthogonalized twice */
     double *t = V + (size_t)m * N;
     for (long i = 0; i < N; i++) {
-      double den = theta - hd[i];
+      double den = theta - (hp ? hp[i] : hd[i]);
       if (fabs(den) < 1e-8) den = den < 0 ? -1e-8 : 1e-8;
       t[i] = r[i] / den;
     }
@@ -455,7 +471,7 @@ int chem_exact(const chem_space *s, chem_target t, diag_ctx *d, chem_refs *refs)
   for (int i = 0; i < nb; i++) binom_b = binom_b * (n - i) / (i + 1);
   double N = binom_a * binom_b;
   int npair = n * (n + 1) / 2;
-  int maxdim = N > 2e7 ? 8 : 20;
+  int maxdim = N > 2e7 ? 10 : 24;
   double need = 8.0 * N * (2.0 * maxdim + 5) + 2.0 * 8.0 * fmax(1048576.0, binom_b * npair) +
                 (binom_a + binom_b) * ((double)na * (n - na) + na + 1) * 7.0 + binom_b * n * n * 5.0;
   uint64_t avail = util_mem_available();
@@ -513,8 +529,14 @@ int chem_exact(const chem_space *s, chem_target t, diag_ctx *d, chem_refs *refs)
       f.bsgn[Ib * n * n + f.b.pq[e]] = f.b.sign[e];
     }
   long Nd = Na * Nb;
-  /* diagonal: same-spin parts from the sparse matrices, Coulomb between spins */
+  /* diagonal of H (not of the penalty): same-spin parts from the sparse
+   * matrices, Coulomb between spins.  It picks the start vectors and
+   * preconditions.  The penalty stays out of it on purpose: determinants whose
+   * diagonal S^2 happens to equal the target are often far from the target
+   * state (four open shells for a two-open-shell triplet) and would make start
+   * vectors that do not overlap it at all. */
   double *hd = xmalloc((size_t)Nd * sizeof(double));
+  double *hp = penalty ? xmalloc((size_t)Nd * sizeof(double)) : NULL;
   {
     double *da = xmalloc((size_t)Na * sizeof(double)), *db = xmalloc((size_t)Nb * sizeof(double));
     for (long Is = 0; Is < Na; Is++) {
@@ -540,11 +562,11 @@ int chem_exact(const chem_space *s, chem_target t, diag_ctx *d, chem_refs *refs)
         uint64_t bb = f.b.bits[Ib];
         for (int j = 0; j < n; j++)
           if (bb >> j & 1) x += wv[j];
-        if (penalty) {
-          double s2d = sz * sz + sz + nb - __builtin_popcountll(f.a.bits[Ia] & bb) - s2t;
-          x += penalty == 1 ? 1.0 * s2d : 1.0 * s2d * s2d;
-        }
         hd[Ia * Nb + Ib] = x;
+        if (hp) {
+          double s2d = sz * sz + sz + nb - __builtin_popcountll(f.a.bits[Ia] & bb) - s2t;
+          hp[Ia * Nb + Ib] = x + (penalty == 1 ? s2d : s2d * s2d);
+        }
       }
     }
     free(da);
@@ -573,7 +595,7 @@ int chem_exact(const chem_space *s, chem_target t, diag_ctx *d, chem_refs *refs)
     iters = 0;
     free(M), free(wv), free(u);
   } else {
-    conv = davidson(&o, hd, Nd, x, &theta, &iters);
+    conv = davidson(&o, hd, hp, Nd, x, &theta, &iters);
   }
   if (conv != 0) {
     diag_report(d, DIAG_ERROR, DIAG_NOWHERE, "the exact (Davidson) solver did not converge in %d iterations", iters);
@@ -597,7 +619,7 @@ int chem_exact(const chem_space *s, chem_target t, diag_ctx *d, chem_refs *refs)
       refs->exact_sz = sz;
     }
   }
-  free(x), free(hx), free(hd), free(o.tmp), free(o.tmp2);
+  free(x), free(hx), free(hd), free(hp), free(o.tmp), free(o.tmp2);
   free(f.Vp), free(f.pidx), free(f.D), free(f.G), free(f.bexc), free(f.bsgn);
   if (na != nb) sparse_free(&f.Hb);
   sparse_free(&f.Ha);

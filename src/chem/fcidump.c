@@ -169,13 +169,19 @@ int fcidump_parse_header(diag_ctx *d, int32_t file, fcidump_header *hd) {
     }
     fields[nf++] = f;
   }
-  if (!ended) herr(&h, hd->start.start, hd->start.end, "the &FCI header does not end: expected `&END` or `/`");
+  if (!ended) {
+    /* without its end the records were read as header values: say only this */
+    herr(&h, hd->start.start, hd->start.end, "the &FCI header does not end: expected `&END` or `/`");
+    for (int i = 0; i < nf; i++) free(fields[i].vals);
+    return -1;
+  }
   /* the records start on the line after the end marker */
   while (h.pos < h.len && text[h.pos] != '\n') h.pos++;
   if (h.pos < h.len) h.pos++;
   hd->body = h.pos;
 
   int have_norb = 0, have_nelec = 0, have_ms2 = 0, norbsym = -1;
+  diag_span nelec_at = hd->start, ms2_at = hd->start;
   const hfield *orbsym = NULL;
   hd->isym = 1;
   for (int i = 0; i < nf; i++) {
@@ -192,9 +198,11 @@ int fcidump_parse_header(diag_ctx *d, int32_t file, fcidump_header *hd) {
         if (hd->nelec < 0) herr(&h, f->vals[0].off, f->vals[0].off + (uint32_t)f->vals[0].len,
                                 "NELEC must not be negative, found `%.*s`", f->vals[0].len, f->vals[0].s);
         else have_nelec = 1;
+        nelec_at = chem_tok_span(file, &f->name);
       }
     } else if (key_is(&f->name, "MS2")) {
       if (int_field(&h, f, &hd->ms2) == 0) have_ms2 = 1;
+      ms2_at = chem_tok_span(file, &f->name);
     } else if (key_is(&f->name, "ISYM")) {
       if (int_field(&h, f, &hd->isym) == 0 && (hd->isym < 1 || hd->isym > 8))
         herr(&h, f->vals[0].off, f->vals[0].off + (uint32_t)f->vals[0].len, "ISYM must be 1..8, found `%.*s`",
@@ -237,16 +245,16 @@ int fcidump_parse_header(diag_ctx *d, int32_t file, fcidump_header *hd) {
     herr(&h, orbsym->name.off, orbsym->name.off + (uint32_t)orbsym->name.len, "ORBSYM has %d entr%s, NORB is %d",
          norbsym, norbsym == 1 ? "y" : "ies", hd->norb);
   if (hd->ms2 < 0) {
-    herr(&h, hd->start.start, hd->start.end, "MS2 = %d is negative", hd->ms2);
+    herr(&h, ms2_at.start, ms2_at.end, "MS2 = %d is negative", hd->ms2);
     diag_help(d, "cairn takes the component with more alpha electrons: write MS2=%d (the energies are the same)",
               -hd->ms2);
   } else if ((hd->nelec + hd->ms2) % 2 != 0) {
-    herr(&h, hd->start.start, hd->start.end, "NELEC = %d and MS2 = %d do not agree: NELEC + MS2 must be even",
+    herr(&h, nelec_at.start, nelec_at.end, "NELEC = %d and MS2 = %d do not agree: NELEC + MS2 must be even",
          hd->nelec, hd->ms2);
   } else if (hd->ms2 > hd->nelec) {
-    herr(&h, hd->start.start, hd->start.end, "MS2 = %d exceeds NELEC = %d", hd->ms2, hd->nelec);
+    herr(&h, ms2_at.start, ms2_at.end, "MS2 = %d exceeds NELEC = %d", hd->ms2, hd->nelec);
   } else if ((hd->nelec + hd->ms2) / 2 > hd->norb) {
-    herr(&h, hd->start.start, hd->start.end, "NELEC = %d with MS2 = %d does not fit in NORB = %d orbitals",
+    herr(&h, nelec_at.start, nelec_at.end, "NELEC = %d with MS2 = %d does not fit in NORB = %d orbitals",
          hd->nelec, hd->ms2, hd->norb);
   }
   return h.errors ? -1 : 0;

@@ -39,3 +39,18 @@ tests_unit_test_chem_io_LDADD = $(UNIT_LDADD)
 check_PROGRAMS += tests/ref/chem_driver
 tests_ref_chem_driver_SOURCES = tests/ref/chem_driver.c
 tests_ref_chem_driver_LDADD = $(CAIRN_LIBS)
+check_PROGRAMS += tests/unit/test_chem_ints tests/unit/test_chem_methods
+UNIT_TESTS += tests/unit/test_chem_ints tests/unit/test_chem_methods
+tests_unit_test_chem_ints_SOURCES = tests/unit/test_chem_ints.c
+tests_unit_test_chem_ints_CFLAGS = $(UNIT_CFLAGS)
+tests_unit_test_chem_ints_LDADD = $(UNIT_LDADD)
+tests_unit_test_chem_methods_SOURCES = tests/unit/test_chem_methods.c
+tests_unit_test_chem_methods_CFLAGS = $(UNIT_CFLAGS)
+tests_unit_test_chem_methods_LDADD = $(UNIT_LDADD)
+
+## reference checks against psi4 (run live), numpy and scipy; golden messages
+CHEM_REF_TESTS = tests/ref/chem_scf.py tests/ref/chem_corr.py tests/ref/chem_rohf.py tests/ref/chem_szabo.py \
+	tests/ref/chem_boys.py tests/ref/chem_fcidump_roundtrip.py tests/ref/chem_fci_numpy.py tests/ref/chem_golden.py \
+	tests/ref/chem_cmd_integrals.py
+TESTS += $(CHEM_REF_TESTS)
+EXTRA_DIST += $(CHEM_REF_TESTS) tests/ref/chem_common.py tests/ref/chem_heh.gbs tests/ref/chem_water.cairn tests/golden/fcidump tests/golden/basis

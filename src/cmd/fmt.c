@@ -10,6 +10,24 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <sys/stat.h>
+
+/* Replace `path` with `text` atomically, keeping the file's permissions. */
+static int rewrite(const char *path, const char *text, size_t len) {
+  struct stat st;
+  int have_mode = stat(path, &st) == 0;
+  util_afile *a = util_afile_open(path);
+  if (!a) return -1;
+  FILE *f = util_afile_stream(a);
+  if (have_mode) fchmod(fileno(f), st.st_mode & 07777);
+  if (len && fwrite(text, 1, len, f) != len) {
+    int e = errno;
+    util_afile_abort(a);
+    errno = e ? e : EIO;
+    return -1;
+  }
+  return util_afile_commit(a);
+}
 
 /* Read all of standard input (caller frees). */
 static char *read_stdin(size_t *len) {
@@ -75,7 +93,7 @@ int cmd_fmt(const cmd_env *env, int argc, char **argv) {
       }
     } else if (is_stdin) {
       fwrite(out.s, 1, out.len, stdout);
-    } else if (!same && util_write_atomic(path, out.s, out.len) != 0) {
+    } else if (!same && rewrite(path, out.s, out.len) != 0) {
       fprintf(stderr, "cairn fmt: cannot write `%s`: %s\n", path, strerror(errno));
       status = 2;
     }

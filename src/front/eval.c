@@ -18,7 +18,7 @@
 #include <stdlib.h>
 #include <string.h>
 
-const char *rs_dim_name(rs_dim d) {
+const char *front_dim_name(rs_dim d) {
   switch (d) {
   case RS_BARE: return "a bare number";
   case RS_LENGTH: return "a length";
@@ -46,7 +46,7 @@ static void eval_error(rs *c, diag_span at, const char *help, const char *fmt, .
   if (help) diag_help(c->d, "%s", help);
 }
 
-rs_name *rs_lookup(rs *c, diag_span name, int report) {
+rs_name *front_lookup(rs *c, diag_span name, int report) {
   size_t len;
   const char *t = ast_text(c->d, name, &len);
   rs_name *later = NULL;
@@ -70,7 +70,7 @@ rs_name *rs_lookup(rs *c, diag_span name, int report) {
   int n = 0;
   for (int i = 0; i < c->nnames; i++)
     if (c->names[i].order < c->cur) owned[n] = ast_text_dup(c->d, c->names[i].name), words[n] = owned[n], n++;
-  const char *s = suggest_word(t, len, words, n);
+  const char *s = front_suggest(t, len, words, n);
   if (s) diag_help(c->d, "did you mean `%s`?", s);
   else if (memchr(t, '-', len))
     diag_help(c->d, "names may contain `-`; to subtract, put spaces around it: `%.*s - %s`",
@@ -84,7 +84,7 @@ rs_name *rs_lookup(rs *c, diag_span name, int report) {
 
 /* The value of a name at the current point (definition values when point < 0). */
 static int name_value(rs *c, const ast_expr *e, rs_val *out) {
-  rs_name *n = rs_lookup(c, e->span, 1);
+  rs_name *n = front_lookup(c, e->span, 1);
   if (!n) return -1;
   if (n->state == 3) return -1;
   if (n->is_vary && c->point >= 0) {
@@ -103,7 +103,7 @@ static int name_value(rs *c, const ast_expr *e, rs_val *out) {
       int save = c->cur;
       c->cur = n->order;
       rs_val v;
-      int rc = rs_eval(c, n->def->e[0], &v);
+      int rc = front_eval(c, n->def->e[0], &v);
       c->cur = save;
       if (rc != 0) return -1;
       n->cache = v;
@@ -128,8 +128,8 @@ static int finite_or_report(rs *c, const ast_expr *e, rs_val *v) {
 
 static int eval_bin(rs *c, const ast_expr *e, rs_val *out) {
   rs_val a, b;
-  int ra = rs_eval(c, e->a, &a);
-  int rb = rs_eval(c, e->b, &b);
+  int ra = front_eval(c, e->a, &a);
+  int rb = front_eval(c, e->b, &b);
   if (ra || rb) return -1;
   rs_val v = {0, RS_BARE, IR_UNIT_NONE, a.varies || b.varies, a.varies ? a.vspan : b.vspan};
   switch (e->op) {
@@ -141,7 +141,7 @@ static int eval_bin(rs *c, const ast_expr *e, rs_val *out) {
         help = a.dim == RS_LENGTH || b.dim == RS_LENGTH ? "give the bare number a unit, like `0.5 angstrom`"
                                                         : "give the bare number a unit, like `10 deg`";
       eval_error(c, e->span, help, "cannot %s %s and %s", e->op == '+' ? "add" : "subtract",
-                 rs_dim_name(a.dim), rs_dim_name(b.dim));
+                 front_dim_name(a.dim), front_dim_name(b.dim));
       return -1;
     }
     v.v = e->op == '+' ? a.v + b.v : a.v - b.v;
@@ -151,7 +151,7 @@ static int eval_bin(rs *c, const ast_expr *e, rs_val *out) {
   case '*':
     if (a.dim != RS_BARE && b.dim != RS_BARE) {
       eval_error(c, e->span, "cairn computes lengths, angles and bare numbers only",
-                 "cannot multiply %s by %s", rs_dim_name(a.dim), rs_dim_name(b.dim));
+                 "cannot multiply %s by %s", front_dim_name(a.dim), front_dim_name(b.dim));
       return -1;
     }
     v.v = a.v * b.v;
@@ -161,7 +161,7 @@ static int eval_bin(rs *c, const ast_expr *e, rs_val *out) {
   case '/':
     if (b.dim != RS_BARE && b.dim != a.dim) {
       eval_error(c, e->span, "cairn computes lengths, angles and bare numbers only",
-                 "cannot divide %s by %s", rs_dim_name(a.dim), rs_dim_name(b.dim));
+                 "cannot divide %s by %s", front_dim_name(a.dim), front_dim_name(b.dim));
       return -1;
     }
     if (b.v == 0) {
@@ -175,7 +175,7 @@ static int eval_bin(rs *c, const ast_expr *e, rs_val *out) {
   default: /* '^' */
     if (a.dim != RS_BARE || b.dim != RS_BARE) {
       eval_error(c, e->span, NULL, "a power takes bare numbers, not %s",
-                 rs_dim_name(a.dim != RS_BARE ? a.dim : b.dim));
+                 front_dim_name(a.dim != RS_BARE ? a.dim : b.dim));
       return -1;
     }
     v.v = pow(a.v, b.v);
@@ -187,7 +187,7 @@ static int eval_bin(rs *c, const ast_expr *e, rs_val *out) {
 
 static int eval_call(rs *c, const ast_expr *e, rs_val *out) {
   rs_val a;
-  if (rs_eval(c, e->a, &a)) return -1;
+  if (front_eval(c, e->a, &a)) return -1;
   const char *fn = ast_func_name(e->func);
   rs_val v = {0, RS_BARE, IR_UNIT_NONE, a.varies, a.vspan};
   switch (e->func) {
@@ -203,7 +203,7 @@ static int eval_call(rs *c, const ast_expr *e, rs_val *out) {
     break;
   default:
     if (a.dim != RS_BARE) {
-      eval_error(c, e->a->span, NULL, "`%s` takes a bare number, not %s", fn, rs_dim_name(a.dim));
+      eval_error(c, e->a->span, NULL, "`%s` takes a bare number, not %s", fn, front_dim_name(a.dim));
       return -1;
     }
     if (e->func == AST_F_SQRT && a.v < 0) {
@@ -225,10 +225,10 @@ static int eval_call(rs *c, const ast_expr *e, rs_val *out) {
 
 static int eval_unit(rs *c, const ast_expr *e, rs_val *out) {
   rs_val a;
-  if (rs_eval(c, e->a, &a)) return -1;
+  if (front_eval(c, e->a, &a)) return -1;
   const char *u = ir_unit_name(e->unit);
   if (a.dim != RS_BARE) {
-    eval_error(c, e->word, NULL, "`%s` goes after a bare number; this is already %s", u, rs_dim_name(a.dim));
+    eval_error(c, e->word, NULL, "`%s` goes after a bare number; this is already %s", u, front_dim_name(a.dim));
     return -1;
   }
   rs_val v = a;
@@ -243,7 +243,7 @@ static int eval_unit(rs *c, const ast_expr *e, rs_val *out) {
   return 0;
 }
 
-int rs_eval(rs *c, const ast_expr *e, rs_val *out) {
+int front_eval(rs *c, const ast_expr *e, rs_val *out) {
   switch (e->kind) {
   case AST_E_NUM:
     if (e->bad) return -1;
@@ -251,18 +251,18 @@ int rs_eval(rs *c, const ast_expr *e, rs_val *out) {
     return 0;
   case AST_E_NAME: return name_value(c, e, out);
   case AST_E_SIGN:
-    if (rs_eval(c, e->a, out)) return -1;
+    if (front_eval(c, e->a, out)) return -1;
     if (e->op == '-') out->v = -out->v;
     return 0;
   case AST_E_BIN: return eval_bin(c, e, out);
   case AST_E_CALL: return eval_call(c, e, out);
   case AST_E_UNIT: return eval_unit(c, e, out);
-  case AST_E_PAREN: return rs_eval(c, e->a, out);
+  case AST_E_PAREN: return front_eval(c, e->a, out);
   }
   return -1;
 }
 
-void rs_varies_error(rs *c, const rs_val *v, const char *where) {
+void front_varies_error(rs *c, const rs_val *v, const char *where) {
   size_t len;
   const char *t = ast_text(c->d, v->vspan, &len);
   char *name = c->varied ? ast_text_dup(c->d, c->varied->name) : xstrdup("?");
@@ -276,24 +276,24 @@ void rs_varies_error(rs *c, const rs_val *v, const char *where) {
   free(name);
 }
 
-int rs_eval_number(rs *c, const ast_expr *e, const char *what, double *out) {
+int front_eval_number(rs *c, const ast_expr *e, const char *what, double *out) {
   rs_val v;
-  if (rs_eval(c, e, &v)) return -1;
+  if (front_eval(c, e, &v)) return -1;
   if (v.varies) {
-    rs_varies_error(c, &v, what);
+    front_varies_error(c, &v, what);
     return -1;
   }
   if (v.dim != RS_BARE) {
-    diag_report(c->d, DIAG_ERROR, e->span, "%s is a bare number, not %s", what, rs_dim_name(v.dim));
+    diag_report(c->d, DIAG_ERROR, e->span, "%s is a bare number, not %s", what, front_dim_name(v.dim));
     return -1;
   }
   *out = v.v;
   return 0;
 }
 
-int rs_eval_int(rs *c, const ast_expr *e, const char *what, long lo, long hi, long *out) {
+int front_eval_int(rs *c, const ast_expr *e, const char *what, long lo, long hi, long *out) {
   double x;
-  if (rs_eval_number(c, e, what, &x)) return -1;
+  if (front_eval_number(c, e, what, &x)) return -1;
   char b[32];
   if (x != floor(x)) {
     diag_report(c->d, DIAG_ERROR, e->span, "%s must be a whole number, not %s", what, util_fmt_double(b, x));

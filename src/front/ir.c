@@ -8,7 +8,7 @@
 void ir_recipe_free(ir_recipe *r) {
   if (!r) return;
   free(r->path);
-  for (int i = 0; i < r->npoints; i++) free(r->points[i].atoms);
+  for (int i = 0; r->points && i < r->npoints; i++) free(r->points[i].atoms);
   free(r->points);
   free(r->scan.name);
   free(r->basis_name);

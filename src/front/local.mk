@@ -48,8 +48,8 @@ tests_unit_test_front_fmt_CFLAGS = $(UNIT_CFLAGS)
 tests_unit_test_front_fmt_LDADD = $(UNIT_LDADD)
 
 ## golden files: bad recipes with their diagnostics, fmt pairs, diff cases
-TESTS += tests/golden/recipes/run.sh tests/golden/fmt/run.sh tests/golden/diff/run.sh
-EXTRA_DIST += tests/golden/recipes tests/golden/fmt tests/golden/diff tests/unit/test_front.h \
+TESTS += tests/golden/recipes/run.sh tests/golden/fmt/run.sh tests/golden/diff/run.sh tests/golden/cli.sh
+EXTRA_DIST += tests/golden/recipes tests/golden/fmt tests/golden/diff tests/golden/cli.sh tests/unit/test_front.h \
 	examples/lih-stretched.cairn examples/water-scan.cairn examples/h4-fcidump.cairn examples/data
 
 ## libFuzzer target for the parser and resolver: `make fuzz` in a tree

@@ -76,6 +76,8 @@ static int is_statement_kind(int k) {
   }
 }
 
+static void front_missing_open(front_parser *p, diag_span at);
+
 static int is_block_kind(int k) { return k == ATOMS || k == POOL || k == ORBITALS; }
 
 static int line_of(const front_parser *p, diag_span s) {
@@ -210,7 +212,8 @@ int recipe_yylex(RECIPE_YYSTYPE *lval, diag_span *lloc, front_parser *p) {
     p->in_block = 0;
     p->block_kw = 0;
   } else if (k == NL && p->block_kw && !p->in_block && !p->line_has_open) {
-    /* the grammar reads a block without `{` (reported by front_missing_open) */
+    /* the grammar reads a block without `{`: say so once */
+    front_missing_open(p, loc);
     p->in_block = 1;
     p->block_noopen = 1;
     p->block_open = p->block_kw_span;
@@ -223,7 +226,7 @@ int recipe_yylex(RECIPE_YYSTYPE *lval, diag_span *lloc, front_parser *p) {
   return k;
 }
 
-void front_missing_open(front_parser *p, diag_span at) {
+static void front_missing_open(front_parser *p, diag_span at) {
   if (!claim_line(p, at)) return;
   count_error(p);
   const char *what = p->block_kw ? block_name(p->block_kw) : "block";
@@ -269,7 +272,7 @@ void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, i
   if (has(nexpected, expected, "`let`")) {
     if (is_name) {
       diag_report(p->d, DIAG_ERROR, at, "unknown statement `%.*s`", (int)len, text);
-      const char *s = suggest_word(text, len, statement_words, NSTATEMENT_WORDS);
+      const char *s = front_suggest(text, len, statement_words, NSTATEMENT_WORDS);
       if (s) diag_help(p->d, "did you mean `%s`?", s);
       else
         diag_help(p->d, "a statement starts with a keyword: let, vary, atoms, basis, orbitals, encoding, "
@@ -330,7 +333,7 @@ void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, i
         nkw++;
       }
     }
-    const char *s = suggest_word(text, len, kw, nkw);
+    const char *s = front_suggest(text, len, kw, nkw);
     if (s) diag_help(p->d, "did you mean `%s`?", s);
   }
   if (strcmp(unexpected, "sign") == 0 && has(nexpected, expected, "end of line"))

@@ -74,8 +74,6 @@ void front_lex_error(front_parser *p, diag_span s, const char *help, const char 
  * name and the names of the tokens that were expected. */
 void front_syntax_error(front_parser *p, diag_span at, const char *unexpected, int nexpected,
                         const char *const *expected);
-/* A block statement without `{` (at is the newline where it was expected). */
-void front_missing_open(front_parser *p, diag_span at);
 /* The parser gave up (its stack is exhausted). */
 void front_parse_failure(front_parser *p, diag_span at, const char *msg);
 /* Token kind of a keyword, or 0 (then the word is a name). */

@@ -89,7 +89,7 @@ static char *relative_to(const rs *c, int32_t in_file, const char *p) {
 
 static char *str_of(const rs *c, diag_span s) { return ast_text_dup(c->d, s); }
 
-int rs_index(rs *c, diag_span s, int bad, long *out) {
+int front_index(rs *c, diag_span s, int bad, long *out) {
   if (bad) return -1;
   size_t len;
   const char *t = ast_text(c->d, s, &len);
@@ -112,7 +112,7 @@ static void unknown_word(rs *c, diag_span w, const char *what, const char *plura
   size_t len;
   const char *t = ast_text(c->d, w, &len);
   diag_report(c->d, DIAG_ERROR, w, "unknown %s `%.*s`", what, (int)len, t);
-  const char *s = suggest_word(t, len, known, n);
+  const char *s = front_suggest(t, len, known, n);
   util_buf b = {0};
   for (int i = 0; i < n; i++) util_buf_printf(&b, "%s%s", i ? ", " : "", known[i]);
   if (s) diag_help(c->d, "did you mean `%s`? (%s: %s)", s, plural, b.s);
@@ -202,7 +202,7 @@ static void check_header(rs *c, ast_file *a, int top) {
     long v;
     int save = c->cur;
     c->cur = 0;
-    if (rs_eval_int(c, s->e[0], "the language version", 0, 1000000, &v) == 0 && v != 1) {
+    if (front_eval_int(c, s->e[0], "the language version", 0, 1000000, &v) == 0 && v != 1) {
       diag_report(c->d, DIAG_ERROR, s->e[0]->span, "this cairn reads language version 1, not %ld", v);
       diag_help(c->d, "start the recipe with `cairn 1`");
     }
@@ -364,7 +364,7 @@ static void resolve_vary(rs *c, ast_stmt *s, int order) {
   rs_val v[3];
   int ok = 1;
   for (int k = 0; k < 3; k++) {
-    if (rs_eval(c, s->e[k], &v[k])) {
+    if (front_eval(c, s->e[k], &v[k])) {
       ok = 0;
       continue;
     }
@@ -396,7 +396,7 @@ static void resolve_vary(rs *c, ast_stmt *s, int order) {
     else {
       char *nm = str_of(c, n->name);
       diag_report(c->d, DIAG_ERROR, s->e[k]->span, "the %s of the scan is %s, but `%s` is %s", part[k],
-                  rs_dim_name(v[k].dim), nm, rs_dim_name(dim));
+                  front_dim_name(v[k].dim), nm, front_dim_name(dim));
       if (n->def->kind == AST_LET) diag_note(c->d, n->def->span, "`%s` is defined here", nm);
       free(nm);
       ok = 0;
@@ -432,7 +432,7 @@ static void resolve_vary(rs *c, ast_stmt *s, int order) {
   sc->to = snap(from_internal(x[1], unit));
   sc->step = snap(from_internal(x[2], unit));
   sc->span = s->span;
-  c->r->npoints = (int)count;
+  c->scan_points = (int)count;
   c->vary_dim = dim;
   c->vary_unit = unit;
   c->vary_from = to_internal(sc->from, unit);
@@ -448,7 +448,7 @@ static void evaluate_names(rs *c) {
         if (c->names[k].def == s) n = &c->names[k];
       if (!n) continue; /* a duplicate, reported */
       c->cur = i;
-      n->state = rs_eval(c, s->e[0], &n->val) == 0 ? 2 : 3;
+      n->state = front_eval(c, s->e[0], &n->val) == 0 ? 2 : 3;
     } else if (s->kind == AST_VARY && s == c->one[RS_VARY]) {
       resolve_vary(c, s, i);
       if (c->varied && c->varied->def == s) c->varied->state = c->vary_ok ? 2 : 3;
@@ -467,7 +467,7 @@ static int order_of(const rs *c, const ast_stmt *s) {
 /* A coordinate: a length, or a bare number in the block's unit. */
 static int coordinate(rs *c, const ast_expr *e, ir_unit block, int report_dim, double *out) {
   rs_val v;
-  if (rs_eval(c, e, &v)) return -1;
+  if (front_eval(c, e, &v)) return -1;
   if (v.dim == RS_ANGLE) {
     if (report_dim) {
       diag_report(c->d, DIAG_ERROR, e->span, "a coordinate is a length, not an angle");
@@ -498,7 +498,7 @@ static void resolve_atoms(rs *c) {
     return;
   }
   int ok = 1;
-  int np = r->npoints > 0 ? r->npoints : 1;
+  int np = c->scan_points > 0 ? c->scan_points : 1;
   r->natoms = na;
   r->npoints = np;
   r->points = xcalloc((size_t)np, sizeof *r->points);
@@ -532,7 +532,8 @@ static void resolve_atoms(rs *c) {
         ok = 0;
         continue;
       }
-      rs_eval(c, it->e[k], &v);
+      front_eval(c, it->e[k], &v);
+      if (v.varies) c->scan_used = 1;
       for (int p = 0; p < np; p++) {
         if (v.varies && r->scan.active) {
           c->point = p;
@@ -565,6 +566,11 @@ static void resolve_atoms(rs *c) {
         }
       }
   if (ok) c->molecule_ok |= 1;
+  if (ok && r->scan.active && !c->scan_used) {
+    diag_report(c->d, DIAG_WARNING, r->scan.span, "no atom coordinate depends on `%s`: every point of the scan is the same geometry",
+                r->scan.name);
+    diag_help(c->d, "use the scanned name in the atoms block, directly or through a `let`");
+  }
 }
 
 static void resolve_basis(rs *c) {
@@ -598,12 +604,12 @@ static void resolve_simple_molecule(rs *c) {
   c->cur = c->nst;
   if (c->one[RS_CHARGE]) {
     long v;
-    if (rs_eval_int(c, c->one[RS_CHARGE]->e[0], "the charge", -1000, 1000, &v) == 0) r->charge = (int)v;
+    if (front_eval_int(c, c->one[RS_CHARGE]->e[0], "the charge", -1000, 1000, &v) == 0) r->charge = (int)v;
     else c->molecule_ok |= 4;
   }
   if (c->one[RS_MULT]) {
     long v;
-    if (rs_eval_int(c, c->one[RS_MULT]->e[0], "the multiplicity", 1, 1000, &v) == 0) r->multiplicity = (int)v;
+    if (front_eval_int(c, c->one[RS_MULT]->e[0], "the multiplicity", 1, 1000, &v) == 0) r->multiplicity = (int)v;
     else c->molecule_ok |= 4;
   }
   resolve_basis(c);
@@ -636,7 +642,7 @@ static void resolve_encoding(rs *c) {
       size_t len;
       const char *t = ast_text(c->d, w, &len);
       diag_report(c->d, DIAG_ERROR, w, "unknown option `%.*s` for `encoding`", (int)len, t);
-      const char *sg = suggest_word(t, len, opts, 1);
+      const char *sg = front_suggest(t, len, opts, 1);
       diag_help(c->d, "%s`encoding` takes one option: taper", sg ? "did you mean `taper`? " : "");
     } else if (c->r->taper) {
       diag_report(c->d, DIAG_ERROR, w, "`taper` is given twice");
@@ -704,7 +710,7 @@ static void resolve_keeps(rs *c) {
     double v = 0;
     if (s->variant == IR_KEEP_PENALTY || s->variant == IR_KEEP_CHECKED) {
       const char *what = s->variant == IR_KEEP_PENALTY ? "the penalty weight" : "the check tolerance";
-      if (rs_eval_number(c, s->e[0], what, &v)) continue;
+      if (front_eval_number(c, s->e[0], what, &v)) continue;
       if (!(v > 0)) {
         char b[32];
         diag_report(c->d, DIAG_ERROR, s->e[0]->span, "%s must be positive, not %s", what, util_fmt_double(b, v));
@@ -772,7 +778,7 @@ static int rule_words_kind(rs *c, ast_stmt *it, ir_rule *rule) {
           known[nk++] = opt_words[j];
           util_buf_printf(&b, "%s%s", b.len ? ", " : "", opt_words[j]);
         }
-      const char *sg = suggest_word(t, len, known, nk);
+      const char *sg = front_suggest(t, len, known, nk);
       if (nk == 0) diag_help(c->d, "`%s` takes no options", rn);
       else if (sg) diag_help(c->d, "did you mean `%s`? (`%s` takes: %s)", sg, rn, b.s);
       else diag_help(c->d, "`%s` takes: %s", rn, b.s);
@@ -846,7 +852,7 @@ static int rule_excite(rs *c, ast_stmt *it, ir_rule *rule) {
   for (int i = 0; i < nf + nt; i++) {
     const ast_range *g = i < nf ? &it->list.v[i] : &it->list2.v[i - nf];
     where[i] = g->lo;
-    if (rs_index(c, g->lo, g->bad, &idx[i])) {
+    if (front_index(c, g->lo, g->bad, &idx[i])) {
       ok = 0;
       idx[i] = -1;
       continue;
@@ -917,10 +923,10 @@ static void resolve_selection(rs *c) {
     double t = 0;
     int ok = 1;
     if (s->variant == IR_CHOOSE_COUNT || s->variant == IR_CHOOSE_GROW)
-      ok &= rs_eval_int(c, s->e[0], "the number of generators", 1, 1000000000L, &n) == 0;
+      ok &= front_eval_int(c, s->e[0], "the number of generators", 1, 1000000000L, &n) == 0;
     if (s->variant == IR_CHOOSE_ABOVE || s->variant == IR_CHOOSE_GROW) {
       const char *what = s->variant == IR_CHOOSE_ABOVE ? "the gradient threshold" : "the stopping gradient";
-      if (rs_eval_number(c, s->e[1], what, &t) == 0) {
+      if (front_eval_number(c, s->e[1], what, &t) == 0) {
         if (!(t > 0)) {
           char b[32];
           diag_report(c->d, DIAG_ERROR, s->e[1]->span, "%s must be positive, not %s", what, util_fmt_double(b, t));
@@ -941,7 +947,7 @@ static void resolve_selection(rs *c) {
   if ((s = c->one[RS_TROTTER])) {
     c->cur = order_of(c, s);
     long k;
-    if (rs_eval_int(c, s->e[0], "the number of Trotter steps", 1, 1000000, &k) == 0) r->trotter = (int)k;
+    if (front_eval_int(c, s->e[0], "the number of Trotter steps", 1, 1000000, &k) == 0) r->trotter = (int)k;
     r->trotter_span = s->span;
   }
 }
@@ -965,7 +971,7 @@ static void resolve_optimize(rs *c) {
       size_t len;
       const char *t = ast_text(c->d, it->name, &len);
       diag_report(c->d, DIAG_ERROR, it->name, "unknown option `%.*s` for `optimize`", (int)len, t);
-      const char *sg = suggest_word(t, len, settings, 5);
+      const char *sg = front_suggest(t, len, settings, 5);
       diag_help(c->d, "%s%s%s`optimize` takes: tolerance, iterations, starts, seed, guess", sg ? "did you mean `" : "",
                 sg ? sg : "", sg ? "`? " : "");
       continue;
@@ -980,7 +986,7 @@ static void resolve_optimize(rs *c) {
     double t;
     switch (k) {
     case 0:
-      if (rs_eval_number(c, it->e[0], "the tolerance", &t) == 0) {
+      if (front_eval_number(c, it->e[0], "the tolerance", &t) == 0) {
         if (t > 0) o->tolerance = t;
         else {
           char b[32];
@@ -989,13 +995,13 @@ static void resolve_optimize(rs *c) {
       }
       break;
     case 1:
-      if (rs_eval_int(c, it->e[0], "the number of iterations", 1, 1000000000L, &n) == 0) o->iterations = (int)n;
+      if (front_eval_int(c, it->e[0], "the number of iterations", 1, 1000000000L, &n) == 0) o->iterations = (int)n;
       break;
     case 2:
-      if (rs_eval_int(c, it->e[0], "the number of starts", 1, 1000000, &n) == 0) o->starts = (int)n;
+      if (front_eval_int(c, it->e[0], "the number of starts", 1, 1000000, &n) == 0) o->starts = (int)n;
       break;
     case 3:
-      if (rs_eval_int(c, it->e[0], "the seed", 0, 9007199254740992L, &n) == 0) o->seed = (uint64_t)n;
+      if (front_eval_int(c, it->e[0], "the seed", 0, 9007199254740992L, &n) == 0) o->seed = (uint64_t)n;
       break;
     default: {
       static const char *const guesses[] = {"zeros", "mp2"};
@@ -1108,7 +1114,7 @@ ir_recipe *front_resolve(diag_ctx *d, int32_t file, const front_opts *opts) {
     evaluate_names(&c);
     resolve_atoms(&c);
     resolve_simple_molecule(&c);
-    rs_space(&c);
+    front_space(&c);
     resolve_encoding(&c);
     resolve_reference(&c);
     resolve_keeps(&c);

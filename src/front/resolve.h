@@ -75,6 +75,8 @@ typedef struct rs {
   ir_unit vary_unit;
   double vary_from;          /* internal units */
   int vary_ok;
+  int scan_points;           /* points of the scan (0: no scan) */
+  int scan_used;             /* an atom coordinate depends on the scanned name */
 
   int point;                 /* -1: definition values; k >= 0: scan point k */
   double point_value;        /* the scanned value at point k, internal units */
@@ -90,22 +92,22 @@ typedef struct rs {
 /* eval.c */
 /* Evaluate e; 0 and *out, or -1 after reporting (or silently when the error
  * was reported before). */
-int rs_eval(rs *c, const ast_expr *e, rs_val *out);
+int front_eval(rs *c, const ast_expr *e, rs_val *out);
 /* A setting value: bare, not varying, finite.  `what` names it in messages. */
-int rs_eval_number(rs *c, const ast_expr *e, const char *what, double *out);
+int front_eval_number(rs *c, const ast_expr *e, const char *what, double *out);
 /* A whole number in [lo, hi]. */
-int rs_eval_int(rs *c, const ast_expr *e, const char *what, long lo, long hi, long *out);
+int front_eval_int(rs *c, const ast_expr *e, const char *what, long lo, long hi, long *out);
 /* Find a name defined before statement c->cur; reports when missing. */
-rs_name *rs_lookup(rs *c, diag_span name, int report);
-const char *rs_dim_name(rs_dim d);
+rs_name *front_lookup(rs *c, diag_span name, int report);
+const char *front_dim_name(rs_dim d);
 /* Report that the varied name reaches a place it may not. */
-void rs_varies_error(rs *c, const rs_val *v, const char *where);
+void front_varies_error(rs *c, const rs_val *v, const char *where);
 
 /* space.c: electrons, multiplicity, orbital count and the orbital space. */
-void rs_space(rs *c);
+void front_space(rs *c);
 
 /* resolve.c helpers used by the others */
 /* Parse a whole number token ("12"); -1 after reporting when it is not one. */
-int rs_index(rs *c, diag_span s, int bad, long *out);
+int front_index(rs *c, diag_span s, int bad, long *out);
 
 #endif

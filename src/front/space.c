@@ -68,7 +68,15 @@ static int molecule(rs *c, int *nalpha, int *nbeta) {
     }
   } else {
     r->problem = IR_PROBLEM_INTEGRALS;
+    /* one point, no atoms: later stages read point 0 */
+    r->npoints = 1;
+    r->points = xcalloc(1, sizeof *r->points);
     int bad = 0;
+    if (r->scan.active) {
+      diag_report(c->d, DIAG_ERROR, r->scan.span, "a scan varies atom coordinates, and an integrals file has none");
+      diag_note(c->d, ints->span, "the molecule comes from this file");
+      bad = 1;
+    }
     if (basis) {
       diag_report(c->d, DIAG_ERROR, basis->kw, "`basis` is for atoms; an integrals file has its own orbitals");
       diag_note(c->d, ints->span, "the integrals are read from here");
@@ -142,12 +150,12 @@ static int orbital_list(rs *c, const ast_ranges *l, int norb, char *mark, const 
   for (int i = 0; i < l->n; i++) {
     const ast_range *g = &l->v[i];
     long lo, hi;
-    if (rs_index(c, g->lo, g->bad, &lo)) {
+    if (front_index(c, g->lo, g->bad, &lo)) {
       ok = 0;
       continue;
     }
     hi = lo;
-    if (g->hi.file >= 0 && rs_index(c, g->hi, g->bad, &hi)) {
+    if (g->hi.file >= 0 && front_index(c, g->hi, g->bad, &hi)) {
       ok = 0;
       continue;
     }
@@ -180,9 +188,9 @@ static int orbital_list(rs *c, const ast_ranges *l, int norb, char *mark, const 
 static diag_span list_span(rs *c, const ast_ranges *l, long p) {
   for (int i = 0; i < l->n; i++) {
     long lo, hi;
-    if (l->v[i].bad || rs_index(c, l->v[i].lo, 0, &lo)) continue;
+    if (l->v[i].bad || front_index(c, l->v[i].lo, 0, &lo)) continue;
     hi = lo;
-    if (l->v[i].hi.file >= 0 && rs_index(c, l->v[i].hi, 0, &hi)) continue;
+    if (l->v[i].hi.file >= 0 && front_index(c, l->v[i].hi, 0, &hi)) continue;
     if (lo <= p && p <= hi) return l->v[i].hi.file >= 0 ? ast_join(l->v[i].lo, l->v[i].hi) : l->v[i].lo;
   }
   return l->n ? l->v[0].lo : DIAG_NOWHERE;
@@ -197,7 +205,7 @@ static void take_list(const char *mark, int norb, int **out, int *n) {
     if (mark[p]) (*out)[k++] = p;
 }
 
-void rs_space(rs *c) {
+void front_space(rs *c) {
   ir_recipe *r = c->r;
   ir_orbitals *o = &r->orbitals;
   int nalpha, nbeta;
@@ -260,8 +268,8 @@ void rs_space(rs *c) {
     o->active_kind = IR_ACTIVE_COUNT;
     o->active_span = active->span;
     long ne, no;
-    int a = rs_eval_int(c, active->e[0], "the number of active electrons", 1, 100000, &ne);
-    int b = rs_eval_int(c, active->e[1], "the number of active orbitals", 1, 100000, &no);
+    int a = front_eval_int(c, active->e[0], "the number of active electrons", 1, 100000, &ne);
+    int b = front_eval_int(c, active->e[1], "the number of active orbitals", 1, 100000, &no);
     int rem = nelec - 2 * nfrozen;
     if (a || b) ok = 0;
     else if (ne > rem) {

@@ -11,7 +11,7 @@
 
 /* Optimal string alignment distance (Damerau-Levenshtein without repeated
  * edits of one substring), case-insensitive; three rows of the table. */
-int suggest_distance(const char *a, size_t na, const char *b, size_t nb) {
+int front_suggest_distance(const char *a, size_t na, const char *b, size_t nb) {
   if (na > 64 || nb > 64) return 1000;
   int rows[3][65];
   int *pp = rows[0], *prev = rows[1], *cur = rows[2];
@@ -37,14 +37,14 @@ int suggest_distance(const char *a, size_t na, const char *b, size_t nb) {
   return prev[nb];
 }
 
-const char *suggest_word(const char *s, size_t len, const char *const *words, int n) {
+const char *front_suggest(const char *s, size_t len, const char *const *words, int n) {
   int limit = len <= 3 ? 1 : len <= 7 ? 2 : 3;
   int best = limit + 1;
   const char *pick = NULL;
   for (int i = 0; i < n; i++) {
     size_t wl = strlen(words[i]);
     if (wl == len && strncasecmp(words[i], s, len) == 0) continue; /* the same word: not a typo */
-    int dist = suggest_distance(s, len, words[i], wl);
+    int dist = front_suggest_distance(s, len, words[i], wl);
     if (dist < best && dist < (int)wl) {
       best = dist;
       pick = words[i];

@@ -96,13 +96,13 @@ static sim_stop stop_of(nlopt_result r) {
   }
 }
 
-/* The starting point of start k: a given vector (NULL: zeros) or a seeded
- * random one.  Random start r (0-based among the random ones) draws from its
- * own generator, seeded from (seed, r). */
-static void start_point(const sim_opt_options *o, int k, int np, double *x, char **label) {
+/* The starting point of start k: a given vector (NULL: the initial values)
+ * or the initial values plus a seeded random offset.  Random start r (0-based
+ * among the random ones) draws from its own generator, seeded from (seed, r). */
+static void start_point(const sim_opt_options *o, const double *initial, int k, int np, double *x, char **label) {
   if (k < o->ngiven) {
     const double *g = o->given ? o->given[k] : NULL;
-    for (int p = 0; p < np; p++) x[p] = g ? g[p] : 0.0;
+    for (int p = 0; p < np; p++) x[p] = g ? g[p] : initial[p];
     const char *l = o->given_label && o->given_label[k] ? o->given_label[k] : (g ? "given" : "zeros");
     *label = xstrdup(l);
     return;
@@ -111,7 +111,7 @@ static void start_point(const sim_opt_options *o, int k, int np, double *x, char
   double range = o->random_range > 0 ? o->random_range : SIM_RANDOM_RANGE;
   util_rng rng;
   util_rng_seed(&rng, o->seed ^ ((uint64_t)(r + 1) * 0x9E3779B97F4A7C15ull));
-  for (int p = 0; p < np; p++) x[p] = range * (2.0 * util_rng_uniform(&rng) - 1.0);
+  for (int p = 0; p < np; p++) x[p] = initial[p] + range * (2.0 * util_rng_uniform(&rng) - 1.0);
   *label = xasprintf("random %d", r + 1);
 }
 
@@ -122,7 +122,7 @@ static int run_start(sim_engine *e, const sim_opt_options *o, int k, int nstarts
   double t0 = util_now();
   s->theta0 = xcalloc(np ? (size_t)np : 1, sizeof *s->theta0);
   s->theta = xcalloc(np ? (size_t)np : 1, sizeof *s->theta);
-  start_point(o, k, np, s->theta0, &s->label);
+  start_point(o, sim_engine_initial(e), k, np, s->theta0, &s->label);
   memcpy(s->theta, s->theta0, (size_t)np * sizeof *s->theta);
   if (np == 0) {
     s->trace = xmalloc(sizeof *s->trace);

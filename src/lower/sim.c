@@ -31,12 +31,13 @@ struct sim_engine {
   sv_state psi;    /* the state (phi during the backward pass) */
   sv_state lam;    /* lambda of the backward pass */
   double *theta;   /* parameters of the last forward pass */
+  double *initial; /* the circuit's initial parameter values (param_init) */
   int valid;       /* psi holds |psi(theta)> */
   long evals;
 };
 
 uint64_t sim_engine_bytes(int nqubits, size_t terms) {
-  return (uint64_t)SIM_VECTORS * sv_vector_bytes(nqubits) + sv_op_bytes_bound(terms);
+  return (uint64_t)SIM_VECTORS * sv_vector_bytes(nqubits) + sv_op_bytes_bound(terms) + SV_DIAG_BYTES(nqubits);
 }
 
 /* Replace each maximal run (>= 2) of consecutive rotations with one parameter
@@ -78,7 +79,8 @@ sim_engine *sim_engine_new(const ans_circuit *c, const pauli_sum *objective, cha
     return NULL;
   }
   /* Width and memory first: nothing large is allocated before this. */
-  if (sv_mem_check(n, SIM_VECTORS, sv_op_bytes_bound(objective->len), err, errlen) != 0) return NULL;
+  if (sv_mem_check(n, SIM_VECTORS, sv_op_bytes_bound(objective->len) + SV_DIAG_BYTES(n), err, errlen) != 0)
+    return NULL;
   for (int k = 1; k < pauli_nwords(n); k++)
     if (c->init[k]) {
       snprintf(err, errlen, "the initial state sets a qubit beyond the register");
@@ -104,6 +106,7 @@ sim_engine *sim_engine_new(const ans_circuit *c, const pauli_sum *objective, cha
     free(rot);
     return NULL;
   }
+  sv_op_cache_diagonal(op); /* counted in the memory check above; fails harmlessly on complex diagonals */
   sim_engine *e = xcalloc(1, sizeof *e);
   e->n = n;
   e->init = c->init[0];
@@ -113,6 +116,8 @@ sim_engine *sim_engine_new(const ans_circuit *c, const pauli_sum *objective, cha
   e->nparams = c->nparams;
   e->obj = op;
   e->theta = xcalloc(c->nparams ? (size_t)c->nparams : 1, sizeof *e->theta);
+  e->initial = xcalloc(c->nparams ? (size_t)c->nparams : 1, sizeof *e->initial);
+  if (c->param_init && c->nparams) memcpy(e->initial, c->param_init, (size_t)c->nparams * sizeof *e->initial);
   sv_state_alloc(&e->psi, n);
   sv_state_alloc(&e->lam, n);
   return e;
@@ -123,6 +128,7 @@ void sim_engine_free(sim_engine *e) {
   for (size_t k = 0; k < e->nrot; k++) sv_gen_free(e->rot[k].gen);
   free(e->rot);
   free(e->theta);
+  free(e->initial);
   sv_op_free(e->obj);
   sv_state_free(&e->psi);
   sv_state_free(&e->lam);
@@ -134,6 +140,7 @@ int sim_engine_params(const sim_engine *e) { return e->nparams; }
 size_t sim_engine_rotations(const sim_engine *e) { return e->nrot_in; }
 size_t sim_engine_steps(const sim_engine *e) { return e->nrot; }
 long sim_engine_evaluations(const sim_engine *e) { return e->evals; }
+const double *sim_engine_initial(const sim_engine *e) { return e->initial; }
 
 static double angle(const sim_rot *r, const double *theta) {
   return r->param >= 0 ? theta[r->param] * r->mult : r->mult;
@@ -193,6 +200,49 @@ double sim_energy_grad(sim_engine *e, const double *theta, double *grad) {
   return E;
 }
 
+int sim_candidate_gradients(sim_engine *e, const double *theta, const pauli_sum *words, const size_t *off,
+                            const size_t *len, size_t ncand, double *out, char *err, size_t errlen) {
+  if (words->n != e->n) {
+    snprintf(err, errlen, "the candidates act on %d qubits but the register has %d", words->n, e->n);
+    return -1;
+  }
+  forward(e, theta);
+  sv_op_apply(e->obj, &e->psi, &e->lam);
+  uint64_t *x = NULL, *z = NULL;
+  double *m = NULL;
+  size_t cap = 0;
+  for (size_t c = 0; c < ncand; c++) {
+    if (len[c] > cap) {
+      cap = len[c];
+      x = xrealloc(x, cap * sizeof *x);
+      z = xrealloc(z, cap * sizeof *z);
+      m = xrealloc(m, cap * sizeof *m);
+    }
+    for (size_t k = 0; k < len[c]; k++) {
+      size_t t = off[c] + k;
+      if (t >= words->len || sv_word_masks(words, t, &x[k], &z[k]) != 0) {
+        snprintf(err, errlen, "candidate %zu refers to a word the sum does not have", c);
+        free(x), free(z), free(m);
+        return -1;
+      }
+      m[k] = creal(words->c[t]);
+    }
+    sv_gen *g = len[c] >= 2 && len[c] <= 64 ? sv_gen_new(e->n, (int)len[c], x, z, m) : NULL;
+    double complex w = 0;
+    if (g) {
+      w = sv_gen_inner(g, &e->lam, &e->psi);
+      sv_gen_free(g);
+    } else {
+      for (size_t k = 0; k < len[c]; k++) w += m[k] * sv_word_inner(&e->lam, x[k], z[k], &e->psi);
+    }
+    out[c] = cimag(w);
+  }
+  free(x);
+  free(z);
+  free(m);
+  return 0;
+}
+
 sv_op *sim_observable(const sim_engine *e, const pauli_sum *s, char *err, size_t errlen) {
   if (s->n != e->n) {
     snprintf(err, errlen, "the observable acts on %d qubits but the register has %d", s->n, e->n);
@@ -204,4 +254,19 @@ sv_op *sim_observable(const sim_engine *e, const pauli_sum *s, char *err, size_t
 double sim_expect(sim_engine *e, const sv_op *op) {
   if (!e->valid) forward(e, e->theta);
   return creal(sv_op_apply(op, &e->psi, &e->lam));
+}
+
+/* (X - x0)^2 = X^2 - 2 x0 X + x0^2, by the Pauli algebra (one product). */
+void sim_add_penalty(pauli_sum *objective, const pauli_sum *X, double x0, double mu) {
+  pauli_sum d, d2;
+  pauli_sum_init(&d, X->n);
+  pauli_sum_copy(&d, X);
+  pauli_sum_add_identity(&d, -x0);
+  pauli_sum_canonicalize(&d, 0.0);
+  pauli_sum_init(&d2, X->n);
+  pauli_sum_mul(&d2, &d, &d);
+  pauli_sum_add_sum(objective, &d2, mu);
+  pauli_sum_canonicalize(objective, 0.0);
+  pauli_sum_free(&d);
+  pauli_sum_free(&d2);
 }

@@ -18,8 +18,8 @@ tests_unit_test_sim_LDADD = $(UNIT_LDADD)
 check_PROGRAMS += tests/ref/sim_driver
 tests_ref_sim_driver_SOURCES = tests/ref/sim_driver.c
 tests_ref_sim_driver_LDADD = $(CAIRN_LIBS)
-TESTS += tests/ref/sim_expm.py tests/ref/sim_optimize.py
-EXTRA_DIST += tests/ref/sim_expm.py tests/ref/sim_optimize.py
+TESTS += tests/ref/sim_expm.py tests/ref/sim_optimize.py tests/ref/sim_h2_uccsd.py
+EXTRA_DIST += tests/ref/sim_expm.py tests/ref/sim_optimize.py tests/ref/sim_h2_uccsd.py
 
 ## benchmark (make bench): rotation bandwidth and energy + gradient vs numpy/scipy
 noinst_PROGRAMS += tests/bench/sim_bench

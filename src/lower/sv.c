@@ -80,7 +80,7 @@ void sv_copy(sv_state *dst, const sv_state *src) {
   const double *restrict in = (const double *)src->a;
   double *restrict out = (double *)dst->a;
   uint64_t len = 2 * src->dim;
-#pragma omp parallel for schedule(static) if (len >= 2 * SV_PAR_MIN)
+#pragma omp parallel for schedule(static) if (len >= 4 * SV_PAR_MIN)
   for (uint64_t k = 0; k < len; k++) out[k] = in[k];
 }
 
@@ -113,7 +113,7 @@ double complex sv_inner(const sv_state *a, const sv_state *b) {
   uint64_t dim = a->dim, nch = (dim + SV_CHUNK - 1) / SV_CHUNK;
   parts ps;
   double *part = parts_get(&ps, nch);
-#pragma omp parallel for schedule(static) if (dim >= SV_PAR_MIN)
+#pragma omp parallel for schedule(static) if (dim >= 2 * SV_PAR_MIN)
   for (uint64_t c = 0; c < nch; c++) {
     uint64_t lo = c * SV_CHUNK, hi = lo + SV_CHUNK < dim ? lo + SV_CHUNK : dim;
     double re = 0, im = 0;

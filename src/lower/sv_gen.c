@@ -139,12 +139,54 @@ double sv_gen_coverage(const sv_gen *g) {
   return g->ns * ldexp(1.0, 1 - k);
 }
 
+/* The rows of one sub-cube's blocks [b0, b1) for one operation (inlined
+ * with constant flags: inner = accumulate <a|G|b>, rot = rotate b, and a
+ * too when inner).  Per pair (i, j) with sign sg of row i:
+ *   <a|G|b> += sg (e conj(a_i) b_j + conj(e) conj(a_j) b_i)
+ *   b_i' = c b_i + sg f b_j,  b_j' = c b_j + sg q b_i. */
+static inline __attribute__((always_inline)) void gen_blocks(const sv_gen *g, const gen_sub *s, int inner, int rot,
+                                                             sv_v2 *restrict a, sv_v2 *restrict b, uint64_t b0,
+                                                             uint64_t b1, sv_v2 C, sv_v2 F1, sv_v2 F2, sv_v2 Q1,
+                                                             sv_v2 Q2, sv_v2 *acc) {
+  unsigned B = 1u << g->lb;
+  const double *row = g->tau + (size_t)s->u * 64;
+  uint64_t m = sv_deposit(b0, g->mid);
+  for (uint64_t bb = b0; bb < b1; bb++) {
+    uint64_t base = s->vm | m, jb = base ^ g->xhi;
+    double sb = sv_parity(base & s->zhi) ? -1.0 : 1.0;
+    for (unsigned l = 0; l < B; l++) {
+      uint64_t i = base | g->off[l], j = jb | g->off[l ^ g->xlo];
+      double sg = sb * row[l];
+      sv_v2 bi = b[i], bj = b[j];
+      if (inner) {
+        /* x = conj(a_i) b_j, y = conj(a_j) b_i as lanes (re-part, im-part) pairs */
+        sv_v2 ai = sg * a[i], aj = sg * a[j];
+        acc[0] += ai * bj;          /* (air bjr, aii bji): sum = Re x */
+        acc[1] += ai * sv_swap(bj); /* (air bji, aii bjr): diff = Im x */
+        acc[2] += aj * bi;
+        acc[3] += aj * sv_swap(bi);
+        if (rot) {
+          sv_v2 Ai = a[i], Aj = a[j];
+          a[i] = C * Ai + sg * (F1 * Aj + F2 * sv_swap(Aj));
+          a[j] = C * Aj + sg * (Q1 * Ai + Q2 * sv_swap(Ai));
+        }
+      }
+      if (rot) {
+        b[i] = C * bi + sg * (F1 * bj + F2 * sv_swap(bj));
+        b[j] = C * bj + sg * (Q1 * bi + Q2 * sv_swap(bi));
+      }
+    }
+    m = (m - g->mid) & g->mid;
+  }
+}
+
 /* The pass shared by rotate, inner and inner_rotate2: over every live
  * sub-cube, blocks in fixed chunks (partial sums per chunk, in order).  a is
  * the vector conjugated in the inner product (l), b the other (p); with rot
  * set, both (or only b when a is NULL) are rotated. */
-static double complex gen_pass(const sv_gen *g, double *restrict a, double *restrict b, int inner, int rot,
+static double complex gen_pass(const sv_gen *g, double *restrict ad, double *restrict bd, int inner, int rot,
                                double theta) {
+  sv_v2 *a = (sv_v2 *)ad, *b = (sv_v2 *)bd;
   unsigned B = 1u << g->lb;
   int nmid = __builtin_popcountll(g->mid);
   uint64_t nblk = (uint64_t)1 << nmid;
@@ -155,48 +197,23 @@ static double complex gen_pass(const sv_gen *g, double *restrict a, double *rest
   for (int si = 0; si < g->ns; si++) {
     const gen_sub *s = &g->sub[si];
     double c = cos(0.5 * theta * s->r), sn = sin(0.5 * theta * s->r) / s->r;
-    /* f = -i sn e (row i),  q = -i sn conj(e) (row j) */
+    /* f = -i sn e (row i), q = -i sn conj(e) (row j); z w = Z1 w + Z2 swap(w) */
     const double fr = sn * s->ei, fi = -sn * s->er, qr = -sn * s->ei, qi = -sn * s->er;
+    const sv_v2 C = {c, c}, F1 = {fr, fr}, F2 = {-fi, fi}, Q1 = {qr, qr}, Q2 = {-qi, qi};
     const double er = s->er, ei = s->ei;
-    const double *row = g->tau + (size_t)s->u * 64;
-#pragma omp parallel for schedule(static) if (nblk * B >= SV_PAR_MIN)
+#pragma omp parallel for schedule(static) if (nblk * B >= 2 * SV_PAR_MIN)
     for (uint64_t ch = 0; ch < nch; ch++) {
       uint64_t b0 = ch * cb, b1 = b0 + cb < nblk ? b0 + cb : nblk;
-      uint64_t m = sv_deposit(b0, g->mid);
-      double re = 0, im = 0;
-      for (uint64_t bb = b0; bb < b1; bb++) {
-        uint64_t base = s->vm | m, jb = base ^ g->xhi;
-        double sb = sv_parity(base & s->zhi) ? -1.0 : 1.0;
-        for (unsigned l = 0; l < B; l++) {
-          uint64_t i = base | g->off[l], j = jb | g->off[l ^ g->xlo];
-          double sg = sb * row[l];
-          double pir = b[2 * i], pii = b[2 * i + 1], pjr = b[2 * j], pji = b[2 * j + 1];
-          if (inner) {
-            /* sigma (e conj(l_i) p_j + conj(e) conj(l_j) p_i) */
-            double lir = a[2 * i], lii = a[2 * i + 1], ljr = a[2 * j], lji = a[2 * j + 1];
-            double xr = lir * pjr + lii * pji, xi = lir * pji - lii * pjr; /* conj(l_i) p_j */
-            double yr = ljr * pir + lji * pii, yi = ljr * pii - lji * pir; /* conj(l_j) p_i */
-            re += sg * ((er * xr - ei * xi) + (er * yr + ei * yi));
-            im += sg * ((er * xi + ei * xr) + (er * yi - ei * yr));
-            if (rot) {
-              a[2 * i] = c * lir + sg * (fr * ljr - fi * lji);
-              a[2 * i + 1] = c * lii + sg * (fr * lji + fi * ljr);
-              a[2 * j] = c * ljr + sg * (qr * lir - qi * lii);
-              a[2 * j + 1] = c * lji + sg * (qr * lii + qi * lir);
-            }
-          }
-          if (rot) {
-            b[2 * i] = c * pir + sg * (fr * pjr - fi * pji);
-            b[2 * i + 1] = c * pii + sg * (fr * pji + fi * pjr);
-            b[2 * j] = c * pjr + sg * (qr * pir - qi * pii);
-            b[2 * j + 1] = c * pji + sg * (qr * pii + qi * pir);
-          }
-        }
-        m = (m - g->mid) & g->mid;
-      }
+      sv_v2 acc[4] = {{0, 0}, {0, 0}, {0, 0}, {0, 0}};
+      if (inner && rot) gen_blocks(g, s, 1, 1, a, b, b0, b1, C, F1, F2, Q1, Q2, acc);
+      else if (inner) gen_blocks(g, s, 1, 0, a, b, b0, b1, C, F1, F2, Q1, Q2, acc);
+      else gen_blocks(g, s, 0, 1, a, b, b0, b1, C, F1, F2, Q1, Q2, acc);
       if (inner) {
-        part[2 * ch] = re;
-        part[2 * ch + 1] = im;
+        double xr = acc[0][0] + acc[0][1], xi = acc[1][0] - acc[1][1];
+        double yr = acc[2][0] + acc[2][1], yi = acc[3][0] - acc[3][1];
+        /* e x + conj(e) y */
+        part[2 * ch] = (er * xr - ei * xi) + (er * yr + ei * yi);
+        part[2 * ch + 1] = (er * xi + ei * xr) + (er * yi - ei * yr);
       }
     }
     if (inner)

@@ -77,6 +77,8 @@ struct sv_op {
   op_term *term;
   double *tau;            /* sv_sign_table() */
   int real;               /* every merged coefficient is real: h(i) is real */
+  double *diag;           /* sv_op_cache_diagonal: h of the X-mask-0 group per row, or NULL */
+  size_t diag_group;      /* that group's index */
 };
 
 double *sv_sign_table(void) {
@@ -209,8 +211,8 @@ sv_op *sv_op_new(const pauli_sum *s, char *err, size_t errlen) {
   sv_op *op = xcalloc(1, sizeof *op);
   op->n = s->n;
   op->nterms = nt;
-  /* chunk bits: leave room below them for the split bits and a block */
-  int top = s->n - SV_LOG_BLOCK - SV_SBITS;
+  /* chunk bits: room below them for a block and the split bits of most groups */
+  int top = s->n - SV_LOG_BLOCK - 4; /* groups with more than 4 split bits get smaller blocks */
   op->top = top < 0 ? 0 : top > OP_TOP ? OP_TOP : top;
   uint64_t topm = op->top ? (((uint64_t)1 << op->top) - 1) << (s->n - op->top) : 0;
   op_build b = {0, 0, 0, 0};
@@ -236,6 +238,7 @@ void sv_op_free(sv_op *op) {
   free(op->pat);
   free(op->term);
   free(op->tau);
+  free(op->diag);
   free(op);
 }
 
@@ -243,7 +246,7 @@ int sv_op_qubits(const sv_op *op) { return op->n; }
 size_t sv_op_terms(const sv_op *op) { return op->nterms; }
 size_t sv_op_groups(const sv_op *op) { return op->ngroups; }
 uint64_t sv_op_bytes(const sv_op *op) {
-  uint64_t b = sizeof *op + op->ngroups * sizeof(op_group) + op->nsubs * sizeof(op_sub) +
+  uint64_t b = (op->diag ? SV_DIAG_BYTES(op->n) : 0) + sizeof *op + op->ngroups * sizeof(op_group) + op->nsubs * sizeof(op_sub) +
                op->npats * sizeof(op_pat) + op->nmerged * sizeof(op_term) + 64 * 64 * sizeof(double);
   for (size_t k = 0; k < op->ngroups; k++) b += ((uint64_t)1 << op->g[k].lb) * sizeof(uint32_t);
   return b;
@@ -401,8 +404,21 @@ static double complex op_chunk(const sv_op *op, const double *restrict v, double
   uint64_t topm = op->top ? (((uint64_t)1 << op->top) - 1) << (n - op->top) : 0;
   uint64_t tc = op->top ? c << (n - op->top) : 0;
   double complex acc = 0;
+  if (op->diag) { /* the tabulated diagonal: one multiply-add per row */
+    uint64_t r0 = tc, r1 = tc + ((uint64_t)1 << (n - op->top));
+    const sv_v2 *vv = (const sv_v2 *)v;
+    if (o) {
+      sv_v2 *vo = (sv_v2 *)o;
+      for (uint64_t i = r0; i < r1; i++) vo[i] += op->diag[i] * vv[i];
+    } else {
+      double re = 0;
+      for (uint64_t i = r0; i < r1; i++) re += op->diag[i] * (v[2 * i] * v[2 * i] + v[2 * i + 1] * v[2 * i + 1]);
+      acc += re;
+    }
+  }
   for (size_t gi = 0; gi < op->ngroups; gi++) {
     const op_group *g = &op->g[gi];
+    if (op->diag && gi == op->diag_group) continue;
     blk b = {g->off, 1u << g->lb, g->xlo, 0, 0};
     for (uint32_t si = g->sfirst; si < g->sfirst + g->ns; si++) {
       const op_sub *s = &op->sub[si];
@@ -454,7 +470,7 @@ static double complex op_run(const sv_op *op, const sv_state *psi, sv_state *out
   const double *v = (const double *)psi->a;
   double *o = out ? (double *)out->a : NULL;
   uint64_t rows = psi->dim >> op->top;
-#pragma omp parallel if (psi->dim >= SV_PAR_MIN && nch > 1)
+#pragma omp parallel if (psi->dim >= SV_OP_PAR_MIN && nch > 1)
   {
     double h[2 * 64];
 #pragma omp for schedule(dynamic, 1)
@@ -469,6 +485,35 @@ static double complex op_run(const sv_op *op, const sv_state *psi, sv_state *out
     im += cimag(part[c]);
   }
   return CMPLX(re, im);
+}
+
+/* The diagonal group's h on every row, block by block (the same sums as an
+ * application, done once). */
+int sv_op_cache_diagonal(sv_op *op) {
+  if (op->diag || !op->real || op->ngroups == 0 || op->g[0].x != 0) return -1; /* x = 0 sorts first */
+  const op_group *g = &op->g[0];
+  uint64_t dim = (uint64_t)1 << op->n;
+  double *d = xcalloc((size_t)dim, sizeof *d);
+  unsigned B = 1u << g->lb;
+#pragma omp parallel if (dim >= SV_OP_PAR_MIN)
+  {
+    double h[64];
+    for (uint32_t si = g->sfirst; si < g->sfirst + g->ns; si++) {
+      const op_sub *s = &op->sub[si];
+      /* every row: the group's free bits and the chunk bits */
+      uint64_t topm = op->top ? (((uint64_t)1 << op->top) - 1) << (op->n - op->top) : 0;
+      uint64_t mid = g->mid | (topm & ~g->S), nb = (uint64_t)1 << __builtin_popcountll(mid);
+#pragma omp for schedule(static)
+      for (uint64_t q = 0; q < nb; q++) {
+        uint64_t base = s->vm | sv_deposit(q, mid);
+        if (block_h_real(op, s, base, B, h))
+          for (unsigned l = 0; l < B; l++) d[base | g->off[l]] += h[l];
+      }
+    }
+  }
+  op->diag = d;
+  op->diag_group = 0;
+  return 0;
 }
 
 double complex sv_op_expect(const sv_op *op, const sv_state *psi) { return op_run(op, psi, NULL); }

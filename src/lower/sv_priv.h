@@ -8,8 +8,12 @@
  * then the chunk sums in order: the same bits for any thread count. */
 #define SV_CHUNK ((uint64_t)1 << 12)
 /* Loops over fewer elements than this run on one thread: below it the cost
- * of waking the team is larger than the work (measured with tests/bench). */
-#define SV_PAR_MIN ((uint64_t)1 << 14)
+ * of waking the team is larger than the work.  Measured with
+ * tests/bench/sim_bench on 2 cores: a rotation pays from 2^16 amplitudes
+ * (1.15x at 2^15, 1.85x at 2^16), so whole-register loops start at 2 * SV_PAR_MIN
+ * amplitudes; H|psi> does far more work per amplitude and pays from 2^12. */
+#define SV_PAR_MIN ((uint64_t)1 << 15)
+#define SV_OP_PAR_MIN ((uint64_t)1 << 12)
 
 /* (-1)^popcount(v) as 0 or 1. */
 static inline unsigned sv_parity(uint64_t v) { return (unsigned)__builtin_parityll(v); }

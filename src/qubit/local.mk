@@ -18,8 +18,8 @@ tests_unit_test_qubit_LDADD = $(UNIT_LDADD)
 check_PROGRAMS += tests/ref/qubit_driver
 tests_ref_qubit_driver_SOURCES = tests/ref/qubit_driver.c
 tests_ref_qubit_driver_LDADD = $(CAIRN_LIBS)
-TESTS += tests/ref/qubit_spectrum.py tests/ref/qubit_fci.py
-EXTRA_DIST += tests/ref/qubit_common.py tests/ref/qubit_spectrum.py tests/ref/qubit_fci.py
+TESTS += tests/ref/qubit_spectrum.py tests/ref/qubit_fci.py tests/ref/qubit_show.py
+EXTRA_DIST += tests/ref/qubit_common.py tests/ref/qubit_spectrum.py tests/ref/qubit_fci.py tests/ref/qubit_show.py
 
 ## benchmark (make bench): Hamiltonian build at 40 and 100 qubits
 noinst_PROGRAMS += tests/bench/qubit_bench

@@ -140,6 +140,7 @@ static int bench_evalgrad(const char *path, int reps) {
   /* the operator alone, on the prepared state */
   const sv_state *psi = sim_prepare(e, theta);
   sv_op *op = sv_op_new(&H, err, sizeof err);
+  sv_op_cache_diagonal(op); /* as the engine does */
   sv_state out;
   sv_state_alloc(&out, c.nqubits);
   for (int k = 0; k < reps; k++) {

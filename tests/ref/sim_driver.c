@@ -6,6 +6,7 @@
  *
  * FILE: { "hamiltonian": <Pauli sum>, "circuit": <rotation program>,
  *         "theta": [...], "observables": [<Pauli sum>, ...],
+ *         (circuit may carry "param_init": [...], the initial values)
  *         "optimize": {"method": "lbfgs", "tolerance": t, "max_evals": m,
  *                      "random": k, "seed": s} }
  * (the JSON forms of include/cairn/json.h).  Exit status 0, or 2 with a
@@ -141,6 +142,9 @@ int main(int argc, char **argv) {
     return fail("hamiltonian", err);
   if (json_read_circuit(cJSON_GetObjectItemCaseSensitive(in, "circuit"), &c, err, sizeof err) != 0)
     return fail("circuit", err);
+  /* optional initial parameter values (ans_circuit.param_init) */
+  const cJSON *pi = cJSON_GetObjectItemCaseSensitive(cJSON_GetObjectItemCaseSensitive(in, "circuit"), "param_init");
+  for (int p = 0; p < c.nparams && p < cJSON_GetArraySize(pi); p++) c.param_init[p] = cJSON_GetArrayItem(pi, p)->valuedouble;
   sim_engine *e = sim_engine_new(&c, &H, err, sizeof err);
   if (!e) return fail("engine", err);
   int rc = strcmp(argv[1], "eval") == 0 ? do_eval(in, e, c.nparams) : do_optimize(in, e, c.nparams);

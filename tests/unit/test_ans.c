@@ -701,6 +701,16 @@ static void test_messages(void **state) {
     fix_free(&f);
   }
   {
+    /* a rule with nothing to make, and an empty pool */
+    static const char *const lines[] = {"singles"};
+    fix f;
+    fix_init(&f, lines, 1, IR_ENC_PARITY, IR_REF_HARTREE_FOCK);
+    assert_int_equal(fix_build(&f, lines, 2, 2, 2, 3, 1), 0);
+    assert_non_null(strstr(f.msg, "test.cairn:8:3: warning: `singles` makes no generators for this reference"));
+    assert_non_null(strstr(f.msg, "test.cairn:7:1: warning: the pool has no generators"));
+    fix_free(&f);
+  }
+  {
     /* an explicit bits reference with the wrong electron count */
     static const char *const lines[] = {"doubles"};
     fix f;

@@ -56,6 +56,32 @@ static void random_hermitian(util_rng *r, int n, int nterms, pauli_sum *s) {
   }
 }
 
+/* A Hermitian sum that connects the states excitations reach: Z_q and
+ * Z_p Z_q terms, every X/Y word on the flip sets `flips`, and a few random
+ * words (random words alone almost never act on a given basis state). */
+static void structured_hermitian(util_rng *r, int n, const uint64_t *flips, int nflips, pauli_sum *s) {
+  random_hermitian(r, n, 10, s);
+  for (int p = 0; p < n; p++) {
+    uint64_t x = 0, z = (uint64_t)1 << p;
+    pauli_sum_add(s, &x, &z, util_rng_uniform(r) - 0.5);
+    for (int q = p + 1; q < n; q++) {
+      z = ((uint64_t)1 << p) | ((uint64_t)1 << q);
+      pauli_sum_add(s, &x, &z, 0.2 * (util_rng_uniform(r) - 0.5));
+    }
+  }
+  for (int f = 0; f < nflips; f++) {
+    uint64_t x = flips[f];
+    int w = __builtin_popcountll(x);
+    for (uint64_t ys = 0; ys < ((uint64_t)1 << w); ys++) {
+      uint64_t z = 0, m = x;
+      for (int b = 0; b < w; b++, m &= m - 1)
+        if (ys >> b & 1) z |= m & -m;
+      pauli_sum_add(s, &x, &z, util_rng_uniform(r) - 0.5);
+    }
+  }
+  pauli_sum_canonicalize(s, 0.0);
+}
+
 /* Adjoint gradient = central differences (step 1e-5, error ~1e-10) to 1e-7,
  * for registers of 1 to 12 qubits, shared parameters and fixed angles. */
 static void test_gradient_finite_differences(void **state) {
@@ -63,6 +89,7 @@ static void test_gradient_finite_differences(void **state) {
   util_rng r;
   util_rng_seed(&r, 21);
   const int sizes[] = {1, 2, 3, 5, 7, 9, 12};
+  int checked = 0, nonzero = 0;
   for (size_t si = 0; si < sizeof sizes / sizeof *sizes; si++) {
     int n = sizes[si];
     for (int trial = 0; trial < 3; trial++) {
@@ -88,12 +115,15 @@ static void test_gradient_finite_differences(void **state) {
         double fd = (ep - em) / (2 * h);
         if (fabs(fd - g[p]) >= 1e-7) fprintf(stderr, "n=%d p=%d adjoint %.12g fd %.12g\n", n, p, g[p], fd);
         assert_true(fabs(fd - g[p]) < 1e-7);
+        checked++;
+        nonzero += fabs(fd) > 1e-4;
       }
       sim_engine_free(e);
       ans_circuit_free(&c);
       pauli_sum_free(&H);
     }
   }
+  assert_true(nonzero >= checked * 3 / 4); /* the gradients are not trivially zero */
 }
 
 /* Jordan-Wigner a_p (dagger: a_p^+) = Z_0..Z_{p-1} (X_p +- i Y_p)/2 (common practice). */
@@ -161,7 +191,8 @@ static void test_gradient_fused(void **state) {
   ans_circuit_push(&c, ans_circuit_word(&c, &x, &z), pw, 1.0, g);
   push_excitation(&c, 1, f4, t4);
   pauli_sum H;
-  random_hermitian(&r, 8, 60, &H);
+  const uint64_t flips[] = {0x33, 0x44, 0xaa, 0x11, 0x42};
+  structured_hermitian(&r, 8, flips, 5, &H);
   char err[300];
   sim_engine *e = sim_engine_new(&c, &H, err, sizeof err);
   assert_non_null(e);
@@ -178,6 +209,7 @@ static void test_gradient_fused(void **state) {
     tp[p] = theta[p] - 1e-5;
     double em = sim_energy(e, tp);
     assert_true(fabs((ep - em) / 2e-5 - grad[p]) < 1e-7);
+    assert_true(fabs(grad[p]) > 1e-3); /* the check is not vacuous */
   }
   sim_engine_free(e);
   ans_circuit_free(&c);
@@ -412,7 +444,8 @@ static void test_engine_refuses(void **state) {
   uint64_t have = util_mem_available();
   if (have != 0 && have < ((uint64_t)32 << 40)) {
     assert_null(sim_engine_new(&c, &H, err, sizeof err));
-    assert_non_null(strstr(err, "a 40-qubit statevector run needs 32.0 TiB (2 vectors of 16.0 TiB"));
+    /* 2 vectors of 16 TiB and the tabulated diagonal, 8 TiB */
+    assert_non_null(strstr(err, "a 40-qubit statevector run needs 40.0 TiB (2 vectors of 16.0 TiB and tables)"));
     assert_non_null(strstr(err, "available"));
   }
   pauli_sum_free(&H);
@@ -422,6 +455,175 @@ static void test_engine_refuses(void **state) {
   pauli_sum_free(&H);
   ans_circuit_free(&c);
   assert_true(sim_engine_bytes(20, 100) > 2 * sv_vector_bytes(20));
+}
+
+/* mu (N - x0)^2 with the Jordan-Wigner number operator N = sum_q (1 - Z_q)/2
+ * (common practice): on a basis state with k ones it is mu (k - x0)^2, and
+ * the objective H + penalty is H's value plus that. */
+static void test_penalty(void **state) {
+  (void)state;
+  const int n = 4;
+  pauli_sum N;
+  pauli_sum_init(&N, n);
+  for (int q = 0; q < n; q++) {
+    uint64_t x = 0, z = (uint64_t)1 << q;
+    pauli_sum_add(&N, &x, &z, -0.5);
+    pauli_sum_add_identity(&N, 0.5);
+  }
+  pauli_sum_canonicalize(&N, 0.0);
+  for (uint64_t bits = 0; bits < 16; bits++) {
+    pauli_sum obj;
+    pauli_sum_init(&obj, n);
+    pauli_sum_add_text(&obj, "Z0", 0.25);
+    sim_add_penalty(&obj, &N, 2.0, 0.5);
+    ans_circuit c;
+    ans_circuit_init(&c, n);
+    c.init[0] = bits;
+    char err[300];
+    sim_engine *e = sim_engine_new(&c, &obj, err, sizeof err);
+    int k = __builtin_popcountll(bits);
+    double want = ((bits & 1) ? -0.25 : 0.25) + 0.5 * (k - 2.0) * (k - 2.0);
+    assert_true(fabs(sim_energy(e, NULL) - want) < 1e-14);
+    sim_engine_free(e);
+    ans_circuit_free(&c);
+    pauli_sum_free(&obj);
+  }
+  pauli_sum_free(&N);
+}
+
+/* Starts begin at the circuit's initial values (mean-field angles): the
+ * "zeros" start is param_init, random starts are offsets from it. */
+static void test_initial_values(void **state) {
+  (void)state;
+  ans_circuit c;
+  pauli_sum H;
+  double ground;
+  one_qubit_problem(&c, &H, &ground);
+  c.param_init[0] = 2.0;
+  c.param_init[1] = -1.0;
+  char err[300];
+  sim_engine *e = sim_engine_new(&c, &H, err, sizeof err);
+  assert_true(sim_engine_initial(e)[0] == 2.0 && sim_engine_initial(e)[1] == -1.0);
+  sim_opt_options o;
+  sim_opt_options_init(&o);
+  o.max_evals = 3;
+  o.nrandom = 2;
+  sim_opt_result res;
+  assert_int_equal(sim_optimize(e, &o, &res, err, sizeof err), 0);
+  assert_true(res.start[0].theta0[0] == 2.0 && res.start[0].theta0[1] == -1.0);
+  for (int k = 1; k < 3; k++) {
+    assert_true(fabs(res.start[k].theta0[0] - 2.0) <= SIM_RANDOM_RANGE);
+    assert_true(fabs(res.start[k].theta0[1] + 1.0) <= SIM_RANDOM_RANGE);
+    assert_true(res.start[k].theta0[0] != 2.0);
+  }
+  sim_opt_result_free(&res);
+  sim_engine_free(e);
+  ans_circuit_free(&c);
+  pauli_sum_free(&H);
+}
+
+/* Candidate gradients equal the central difference of the program with the
+ * candidate appended under a new parameter at 0 (an excitation that fuses, a
+ * single word, and a two-word candidate that does not fuse). */
+static void test_candidate_gradients(void **state) {
+  (void)state;
+  util_rng r;
+  util_rng_seed(&r, 25);
+  ans_circuit base;
+  ans_circuit_init(&base, 8);
+  base.init[0] = 0x0f;
+  const int f1[] = {0, 1}, t1[] = {4, 5};
+  push_excitation(&base, 2, f1, t1);
+  pauli_sum H;
+  const uint64_t flips[] = {0x33, 0xcc, 0x22, 0x84, 0x08};
+  structured_hermitian(&r, 8, flips, 5, &H);
+  /* candidates: the words of a double, of a single, and "X2 Y7" + "Z0 Y3" */
+  ans_circuit tmp;
+  ans_circuit_init(&tmp, 8);
+  const int f2[] = {2, 3}, t2[] = {6, 7}, f3[] = {1}, t3[] = {5};
+  push_excitation(&tmp, 2, f2, t2);
+  push_excitation(&tmp, 1, f3, t3);
+  pauli_sum words;
+  pauli_sum_init(&words, 8);
+  for (size_t k = 0; k < tmp.nrot; k++)
+    pauli_sum_add(&words, pauli_sum_x(&tmp.words, (size_t)tmp.rot[k].word),
+                  pauli_sum_z(&tmp.words, (size_t)tmp.rot[k].word), tmp.rot[k].mult);
+  pauli_sum_add_text(&words, "X2 Y7", 0.7);
+  pauli_sum_add_text(&words, "Z0 Y3", -0.4);
+  size_t off[3] = {0, 8, 10}, len[3] = {8, 2, 2};
+  char err[300];
+  sim_engine *e = sim_engine_new(&base, &H, err, sizeof err);
+  double theta[1] = {0.3}, g[3];
+  assert_int_equal(sim_candidate_gradients(e, theta, &words, off, len, 3, g, err, sizeof err), 0);
+  for (int c = 0; c < 3; c++) {
+    ans_circuit ext;
+    ans_circuit_init(&ext, 8);
+    ext.init[0] = base.init[0];
+    ans_gen_info gi = {.kind = ANS_WORD, .text = "x", .rule = -1};
+    int gg = ans_circuit_add_gen(&ext, &gi);
+    int p0 = ans_circuit_add_param(&ext, gg), p1 = ans_circuit_add_param(&ext, gg);
+    for (size_t k = 0; k < base.nrot; k++)
+      ans_circuit_push(&ext,
+                       ans_circuit_word(&ext, pauli_sum_x(&base.words, (size_t)base.rot[k].word),
+                                        pauli_sum_z(&base.words, (size_t)base.rot[k].word)),
+                       p0, base.rot[k].mult, gg);
+    for (size_t k = off[c]; k < off[c] + len[c]; k++)
+      ans_circuit_push(&ext, ans_circuit_word(&ext, pauli_sum_x(&words, k), pauli_sum_z(&words, k)), p1,
+                       creal(words.c[k]), gg);
+    sim_engine *e2 = sim_engine_new(&ext, &H, err, sizeof err);
+    double tp[2] = {0.3, 1e-5}, tm[2] = {0.3, -1e-5};
+    double fd = (sim_energy(e2, tp) - sim_energy(e2, tm)) / 2e-5;
+    assert_true(fabs(fd - g[c]) < 1e-7);
+    assert_true(fabs(g[c]) > 1e-3); /* the check is not vacuous */
+    sim_engine_free(e2);
+    ans_circuit_free(&ext);
+  }
+  sim_engine_free(e);
+  ans_circuit_free(&base);
+  ans_circuit_free(&tmp);
+  pauli_sum_free(&words);
+  pauli_sum_free(&H);
+}
+
+typedef struct progress_log {
+  long calls, last_eval[3];
+  int last_start;
+  double best_seen;
+} progress_log;
+
+static void on_progress(void *user, const sim_progress *p) {
+  progress_log *l = user;
+  l->calls++;
+  assert_true(p->start >= l->last_start && p->start < p->nstarts && p->nstarts == 3);
+  l->last_start = p->start;
+  assert_int_equal(p->evaluation, l->last_eval[p->start] + 1); /* one call per evaluation, in order */
+  l->last_eval[p->start] = p->evaluation;
+  assert_true(p->best <= p->energy);
+}
+
+/* The progress hook sees every evaluation of every start, in order. */
+static void test_progress_hook(void **state) {
+  (void)state;
+  ans_circuit c;
+  pauli_sum H;
+  double ground;
+  one_qubit_problem(&c, &H, &ground);
+  char err[300];
+  sim_engine *e = sim_engine_new(&c, &H, err, sizeof err);
+  progress_log log = {0, {0, 0, 0}, 0, 0};
+  sim_opt_options o;
+  sim_opt_options_init(&o);
+  o.nrandom = 2;
+  o.progress = on_progress;
+  o.progress_user = &log;
+  sim_opt_result res;
+  assert_int_equal(sim_optimize(e, &o, &res, err, sizeof err), 0);
+  assert_int_equal(log.calls, res.evals);
+  for (int k = 0; k < 3; k++) assert_int_equal(log.last_eval[k], res.start[k].evals);
+  sim_opt_result_free(&res);
+  sim_engine_free(e);
+  ans_circuit_free(&c);
+  pauli_sum_free(&H);
 }
 
 int main(void) {
@@ -434,6 +636,10 @@ int main(void) {
       cmocka_unit_test(test_given_start),
       cmocka_unit_test(test_no_parameters),
       cmocka_unit_test(test_engine_refuses),
+      cmocka_unit_test(test_penalty),
+      cmocka_unit_test(test_progress_hook),
+      cmocka_unit_test(test_candidate_gradients),
+      cmocka_unit_test(test_initial_values),
   };
   return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -29,16 +29,17 @@ for f in *.cairn; do
     echo "FAIL $f: diagnostic differs from $name.err"
     diff -u "$name.err" "$tmp/err" | head -40
     bad=$((bad + 1))
-  elif [ -s "$tmp/out" ]; then
+  elif [ "$want" != 0 ] && [ -s "$tmp/out" ]; then
     echo "FAIL $f: printed to standard output"
     bad=$((bad + 1))
   fi
 done
 echo "$n bad recipes, $bad failed"
-# ... and the recipes of examples/ are good: no diagnostics, exit status 0.
+# ... and the recipes of examples/ are good: exit status 0, no errors (the
+# symmetry checker may warn about generators it drops).
 cd "$CAIRN_SRCDIR" || exit 1
 for f in examples/*.cairn; do
-  if ! "$CAIRN" check --color=never "$f" >"$tmp/out" 2>"$tmp/err" || [ -s "$tmp/err" ]; then
+  if ! "$CAIRN" check --color=never "$f" >"$tmp/out" 2>"$tmp/err" || grep -q "error:" "$tmp/err"; then
     echo "FAIL $f does not check:"; cat "$tmp/err"; bad=$((bad + 1))
   fi
 done
