@@ -4,6 +4,8 @@
 #include "cairn/help.h"
 #include "cmd/cmd.h"
 
+#include <cblas.h>
+
 #include <stdarg.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -144,6 +146,8 @@ static int take_globals(int argc, char **argv, cmd_env *env, int *bad) {
 }
 
 int main(int argc, char **argv) {
+  /* OpenMP does cairn's threading; BLAS threads on top of it only contend. */
+  openblas_set_num_threads(1);
   cmd_env env = {DIAG_COLOR_AUTO, 0};
   int bad = 0;
   argc = take_globals(argc - 1, argv + 1, &env, &bad);

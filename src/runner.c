@@ -202,7 +202,7 @@ int run_circuit(const ir_recipe *r, int k, diag_ctx *d, ans_circuit *c) {
 }
 
 static void fill_energies(rep_point *out, const chem_refs *refs, const chem_space *cs) {
-  out->e.has_nuclear = 1;
+  out->e.has_nuclear = cs->has_nuclear; /* FCIDUMP files do not carry it */
   out->e.nuclear = cs->e_nuclear;
   if (refs->has_hf) {
     out->e.has_hf = 1;
@@ -248,6 +248,25 @@ int run_point(const ir_recipe *r, int k, diag_ctx *d, const run_options *o, run_
     return -1;
   }
   out->qubits = pp.nqubits;
+  fill_energies(out, &pp.refs, pp.cs);
+
+  /* Refuse a register the machine cannot hold now, before the references
+   * (which can take long for a large active space) and before allocating. */
+  if (r->nrules > 0 || r->reference.kind == IR_REF_MEAN_FIELD) {
+    char merr[256];
+    uint64_t need = sim_engine_bytes(pp.nqubits, pp.ham.len);
+    uint64_t vec = sv_vector_bytes(pp.nqubits);
+    if (sv_mem_check(pp.nqubits, SIM_VECTORS, need > SIM_VECTORS * vec ? need - SIM_VECTORS * vec : 0, merr,
+                     sizeof merr) != 0) {
+      diag_report(d, DIAG_ERROR, r->orbitals.active_span.file >= 0 ? r->orbitals.active_span : r->pool_span,
+                  "%s", merr);
+      diag_help(d, "choose a smaller active space (`active N electrons in M orbitals`), or taper");
+      out->failure = failure_text("statevector", d, merr);
+      pipe_point_free(&pp);
+      out->seconds = util_now() - t0;
+      return -1;
+    }
+  }
 
   /* Classical references in the sector the recipe keeps. */
   chem_mp2(&pp.space, d, &pp.refs);

@@ -22,6 +22,7 @@ typedef struct chem_space {
   int norb;
   int nalpha, nbeta;
   double e_nuclear;          /* nuclear repulsion (0 when unknown, e.g. FCIDUMP) */
+  int has_nuclear;           /* 1 when e_nuclear is known (atoms); FCIDUMP files do not carry it */
   double e_constant;         /* nuclear repulsion + frozen-core energy */
   double *h1;                /* norb*norb, h1[p*norb+q] */
   double *h2;                /* norb^4, h2[((p*norb+q)*norb+r)*norb+s] = (pq|rs) */

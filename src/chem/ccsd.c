@@ -18,6 +18,10 @@
 #include <stdlib.h>
 #include <string.h>
 
+/* Below this many doubles amplitudes a loop runs on one thread: starting
+ * threads would cost more than the work. */
+enum { CCSD_PAR = 20000 };
+
 typedef struct ccsd {
   int o, v;
   int *so;        /* o+v: renumbered index -> spin orbital */
@@ -45,7 +49,7 @@ static double *block(const chem_space *s, const ccsd *c, const char *kinds) {
   }
   size_t n = (size_t)dim[0] * dim[1] * dim[2] * dim[3];
   double *b = xmalloc((n ? n : 1) * sizeof(double));
-#pragma omp parallel for collapse(2) schedule(static)
+#pragma omp parallel for collapse(2) schedule(static) if (n > CCSD_PAR)
   for (int p = 0; p < dim[0]; p++)
     for (int q = 0; q < dim[1]; q++)
       for (int r = 0; r < dim[2]; r++)
@@ -110,7 +114,7 @@ static void cc_update(const ccsd *c, const double *t1, const double *t2, double 
   double *Fae = xmalloc(vv * sizeof(double)), *Fmi = xmalloc(oo * sizeof(double));
   double *Fme = xmalloc((size_t)o * v * sizeof(double));
   /* Fae */
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if ((size_t)o * o * v * v > CCSD_PAR)
   for (int a = 0; a < v; a++)
     for (int e = 0; e < v; e++) {
       double x = a == e ? 0 : FVV(a, e);
@@ -123,7 +127,7 @@ static void cc_update(const ccsd *c, const double *t1, const double *t2, double 
       Fae[a * v + e] = x;
     }
   /* Fmi */
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if ((size_t)o * o * v * v > CCSD_PAR)
   for (int m = 0; m < o; m++)
     for (int i = 0; i < o; i++) {
       double x = m == i ? 0 : FO(m, i);
@@ -160,7 +164,7 @@ static void cc_update(const ccsd *c, const double *t1, const double *t2, double 
    * <am||ef> = -<ma||ef>. */
   double *Wabef = xmalloc(vv * vv * sizeof(double));
   memcpy(Wabef, c->vvvv, vv * vv * sizeof(double));
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if ((size_t)o * o * v * v > CCSD_PAR)
   for (int a = 0; a < v; a++)
     for (int b = 0; b < v; b++) {
       double *w = Wabef + ((size_t)a * v + b) * vv;
@@ -175,7 +179,7 @@ static void cc_update(const ccsd *c, const double *t1, const double *t2, double 
               (int)vv, 1.0, Wabef, (int)vv);
   /* Wmbej, stored [m][b][e][j] */
   double *Wmbej = xmalloc(oo * vv * sizeof(double));
-#pragma omp parallel for collapse(2) schedule(static)
+#pragma omp parallel for collapse(2) schedule(static) if ((size_t)o * o * v * v > CCSD_PAR)
   for (int m = 0; m < o; m++)
     for (int b = 0; b < v; b++)
       for (int e = 0; e < v; e++)
@@ -247,7 +251,7 @@ static void cc_update(const ccsd *c, const double *t1, const double *t2, double 
               Z, (int)ov);
   free(A), free(B);
 #define ZZ(i, a, j, b) Z[((size_t)(i) * v + (a)) * ov + (size_t)(j) * v + (b)]
-#pragma omp parallel for collapse(2) schedule(static)
+#pragma omp parallel for collapse(2) schedule(static) if ((size_t)o * o * v * v > CCSD_PAR)
   for (int i = 0; i < o; i++)
     for (int j = 0; j < o; j++)
       for (int a = 0; a < v; a++)

@@ -40,6 +40,10 @@
 #include <omp.h>
 #endif
 
+/* Below this many determinants the sigma loops run on one thread: starting
+ * threads would cost more than the work. */
+enum { FCI_PAR = 20000 };
+
 /* Strings of k electrons in n orbitals, and their single replacements. */
 typedef struct strings {
   int n, k;
@@ -143,7 +147,7 @@ static void same_spin(const strings *s, const double *k, const double *g, sparse
   int32_t **cols = xmalloc((size_t)N * sizeof(int32_t *));
   double **vals = xmalloc((size_t)N * sizeof(double *));
   long *cnt = xmalloc((size_t)N * sizeof(long));
-#pragma omp parallel
+#pragma omp parallel if (N > 2000)
   {
     double *acc = xcalloc((size_t)N, sizeof(double));
     char *mark = xcalloc((size_t)N, 1);
@@ -207,25 +211,46 @@ typedef struct fci {
   int *pidx;            /* n*n: pq -> packed pair */
   int32_t *bexc;        /* Nb x n^2: E_pq |Ib> -> J (or -1); sign in bsgn */
   int8_t *bsgn;
+  double *ct, *st;      /* Na x Nb scratch for the transposed beta part */
   long block;           /* alpha strings per opposite-spin block */
   double *D, *G;        /* block x Nb x npair */
 } fci;
+
+/* out = a^T for a (rows x cols), in cache-sized tiles. */
+static void transpose(const double *a, long rows, long cols, double *out) {
+  enum { TILE = 32 };
+#pragma omp parallel for schedule(static) if (rows * cols > FCI_PAR)
+  for (long r0 = 0; r0 < rows; r0 += TILE)
+    for (long c0 = 0; c0 < cols; c0 += TILE) {
+      long r1 = r0 + TILE < rows ? r0 + TILE : rows, c1 = c0 + TILE < cols ? c0 + TILE : cols;
+      for (long r = r0; r < r1; r++)
+        for (long c = c0; c < c1; c++) out[c * rows + r] = a[r * cols + c];
+    }
+}
 
 /* sigma = H c (c, sigma: Na x Nb). */
 static void fci_sigma(const fci *f, const double *c, double *sigma) {
   long Na = f->a.count, Nb = f->b.count;
   int n = f->n, np = f->npair;
-  /* same spin, beta: row by row */
-#pragma omp parallel for schedule(static)
-  for (long Ia = 0; Ia < Na; Ia++) {
-    const double *cr = c + Ia * Nb;
-    double *sr = sigma + Ia * Nb;
-    for (long Ib = 0; Ib < Nb; Ib++) {
-      double v = 0;
-      for (long x = f->Hb.row[Ib]; x < f->Hb.row[Ib + 1]; x++) v += f->Hb.val[x] * cr[f->Hb.col[x]];
-      sr[Ib] = v;
+  /* same spin, beta, on the transpose so that it is row operations too:
+   * sigma^T[Ib][:] = sum_Jb Hb(Ib, Jb) C^T[Jb][:] */
+  double *ct = f->ct, *st = f->st;
+  transpose(c, Na, Nb, ct);
+#pragma omp parallel for schedule(static) if (Na * Nb > FCI_PAR)
+  for (long Ib = 0; Ib < Nb; Ib++) {
+    double *sr = st + Ib * Na;
+    for (long Ia = 0; Ia < Na; Ia++) sr[Ia] = 0;
+    for (long x = f->Hb.row[Ib]; x < f->Hb.row[Ib + 1]; x++) {
+      double h = f->Hb.val[x];
+      const double *cj = ct + (long)f->Hb.col[x] * Na;
+      for (long Ia = 0; Ia < Na; Ia++) sr[Ia] += h * cj[Ia];
     }
-    /* same spin, alpha */
+  }
+  transpose(st, Nb, Na, sigma);
+  /* same spin, alpha: sigma[Ia][:] += sum_Ja Ha(Ia, Ja) C[Ja][:] */
+#pragma omp parallel for schedule(static) if (Na * Nb > FCI_PAR)
+  for (long Ia = 0; Ia < Na; Ia++) {
+    double *sr = sigma + Ia * Nb;
     for (long x = f->Ha.row[Ia]; x < f->Ha.row[Ia + 1]; x++) {
       double h = f->Ha.val[x];
       const double *cj = c + (long)f->Ha.col[x] * Nb;
@@ -240,7 +265,7 @@ static void fci_sigma(const fci *f, const double *c, double *sigma) {
     long B = Na - a0 < f->block ? Na - a0 : f->block;
     size_t rows = (size_t)B * Nb;
     memset(f->D, 0, rows * np * sizeof(double));
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if (Na * Nb > FCI_PAR)
     for (long Ib = 0; Ib < Nb; Ib++) {
       for (long e = f->b.off[Ib]; e < f->b.off[Ib + 1]; e++) {
         /* E_pq |Ib> = s |Jb>  =>  <Ib|E_qp|Jb> = s */
@@ -250,7 +275,7 @@ static void fci_sigma(const fci *f, const double *c, double *sigma) {
         for (long ja = 0; ja < B; ja++) f->D[((size_t)ja * Nb + Ib) * np + pr] += sg * c[(a0 + ja) * Nb + Jb];
       }
     }
-#pragma omp parallel
+#pragma omp parallel if (Na * Nb > FCI_PAR)
     {
       int nt = 1, id = 0;
 #ifdef _OPENMP
@@ -290,7 +315,7 @@ static void fci_s2(const fci *f, const double *c, double *sigma) {
   int n = f->n;
   double sz = 0.5 * (f->a.k - f->b.k);
   double diag = sz * sz + sz + f->b.k;
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if (Na * Nb > FCI_PAR)
   for (long Ia = 0; Ia < Na; Ia++) {
     double *sr = sigma + Ia * Nb;
     for (long Ib = 0; Ib < Nb; Ib++) sr[Ib] = diag * c[Ia * Nb + Ib];
@@ -364,7 +389,7 @@ static int davidson(const op *o, const double *hd, const double *hp, long N, dou
   if (maxdim > N) maxdim = (int)N;
   double *V = xmalloc((size_t)maxdim * N * sizeof(double)), *HV = xmalloc((size_t)maxdim * N * sizeof(double));
   double *r = xmalloc((size_t)N * sizeof(double));
-  int half = maxdim / (hp ? 4 : 2);
+  int half = 4; /* start vectors of each kind: each costs one sigma */
   if (half < 1) half = 1;
   long low[64];
   int nguess = lowest_k(hd, N, half, NULL, 0, low);
@@ -397,7 +422,8 @@ static int davidson(const op *o, const double *hd, const double *hp, long N, dou
     }
     cblas_daxpy((int)N, -theta, x, 1, r, 1);
     double rn = cblas_dnrm2((int)N, r, 1);
-    if (rn < 1e-7 && fabs(theta - old) < 1e-10) {
+    /* residual 1e-6: the Ritz value is then within about r^2/gap ~ 1e-11 of the eigenvalue */
+    if (rn < 1e-6 && fabs(theta - old) < 1e-10) {
       conv = 1;
       break;
     }
@@ -472,7 +498,7 @@ int chem_exact(const chem_space *s, chem_target t, diag_ctx *d, chem_refs *refs)
   double N = binom_a * binom_b;
   int npair = n * (n + 1) / 2;
   int maxdim = N > 2e7 ? 10 : 24;
-  double need = 8.0 * N * (2.0 * maxdim + 5) + 2.0 * 8.0 * fmax(1048576.0, binom_b * npair) +
+  double need = 8.0 * N * (2.0 * maxdim + 7) + 2.0 * 8.0 * fmax(4194304.0, binom_b * npair) +
                 (binom_a + binom_b) * ((double)na * (n - na) + na + 1) * 7.0 + binom_b * n * n * 5.0;
   uint64_t avail = util_mem_available();
   if (N > 2e9 || (avail && need > 0.8 * (double)avail)) {
@@ -513,11 +539,13 @@ int chem_exact(const chem_space *s, chem_target t, diag_ctx *d, chem_refs *refs)
         for (int t2 = 0; t2 <= r; t2++)
           f.Vp[(size_t)f.pidx[p * n + q] * npair + f.pidx[r * n + t2]] = s->h2[chem_h2_index(n, p, q, r, t2)];
   long Na = f.a.count, Nb = f.b.count;
-  /* blocks of about 8 MB for D (and G) */
-  f.block = (long)(1048576.0 / ((double)Nb * npair));
+  /* blocks of about 32 MB for D (and G): few blocks, few thread barriers */
+  f.block = (long)(4194304.0 / ((double)Nb * npair));
   if (f.block < 1) f.block = 1;
   if (f.block > Na) f.block = Na;
   f.D = xmalloc((size_t)f.block * Nb * npair * sizeof(double));
+  f.ct = xmalloc((size_t)Na * Nb * sizeof(double));
+  f.st = xmalloc((size_t)Na * Nb * sizeof(double));
   f.G = xmalloc((size_t)f.block * Nb * npair * sizeof(double));
   /* beta replacement table for S^2 */
   f.bexc = xmalloc((size_t)Nb * n * n * sizeof(int32_t));
@@ -549,7 +577,7 @@ int chem_exact(const chem_space *s, chem_target t, diag_ctx *d, chem_refs *refs)
       for (long x = f.Hb.row[Is]; x < f.Hb.row[Is + 1]; x++)
         if (f.Hb.col[x] == Is) db[Is] = f.Hb.val[x];
     }
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if (Na * Nb > FCI_PAR)
     for (long Ia = 0; Ia < Na; Ia++) {
       double wv[64];
       for (int j = 0; j < n; j++) {
@@ -620,7 +648,7 @@ int chem_exact(const chem_space *s, chem_target t, diag_ctx *d, chem_refs *refs)
     }
   }
   free(x), free(hx), free(hd), free(hp), free(o.tmp), free(o.tmp2);
-  free(f.Vp), free(f.pidx), free(f.D), free(f.G), free(f.bexc), free(f.bsgn);
+  free(f.Vp), free(f.pidx), free(f.D), free(f.G), free(f.ct), free(f.st), free(f.bexc), free(f.bsgn);
   if (na != nb) sparse_free(&f.Hb);
   sparse_free(&f.Ha);
   strings_free(&f.a);

@@ -556,7 +556,7 @@ long int_eri(const int_basis *ib, double screen, double *eri) {
     }
   const double *const *T = (const double *const *)Tl;
   /* Schwarz factors from the diagonal quartets */
-#pragma omp parallel
+#pragma omp parallel if (npairs > 200)
   {
     eri_work w;
     work_init(&w);
@@ -573,7 +573,7 @@ long int_eri(const int_basis *ib, double screen, double *eri) {
   }
   memset(eri, 0, n * n * n * n * sizeof(double));
   long computed = 0;
-#pragma omp parallel reduction(+ : computed)
+#pragma omp parallel reduction(+ : computed) if (npairs > 200)
   {
     eri_work w;
     work_init(&w);

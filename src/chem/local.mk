@@ -51,6 +51,15 @@ tests_unit_test_chem_methods_LDADD = $(UNIT_LDADD)
 ## reference checks against psi4 (run live), numpy and scipy; golden messages
 CHEM_REF_TESTS = tests/ref/chem_scf.py tests/ref/chem_corr.py tests/ref/chem_rohf.py tests/ref/chem_szabo.py \
 	tests/ref/chem_boys.py tests/ref/chem_fcidump_roundtrip.py tests/ref/chem_fci_numpy.py tests/ref/chem_golden.py \
-	tests/ref/chem_cmd_integrals.py
+	tests/ref/chem_cmd_integrals.py tests/ref/chem_limits.py
 TESTS += $(CHEM_REF_TESTS)
 EXTRA_DIST += $(CHEM_REF_TESTS) tests/ref/chem_common.py tests/ref/chem_heh.gbs tests/ref/chem_water.cairn tests/golden/fcidump tests/golden/basis
+
+## benchmark (make bench): integrals + SCF and the exact solver, beside psi4
+noinst_PROGRAMS += tests/bench/chem_bench
+tests_bench_chem_bench_SOURCES = tests/bench/chem_bench.c
+tests_bench_chem_bench_LDADD = $(CAIRN_LIBS)
+EXTRA_DIST += tests/bench/chem_bench.py
+BENCH_TARGETS += bench-chem
+bench-chem: tests/bench/chem_bench$(EXEEXT)
+	$(PYTHON) $(srcdir)/tests/bench/chem_bench.py $(abs_top_builddir)

@@ -48,7 +48,7 @@ static void build_jk(int n, const double *eri, const double *D, double *J, doubl
   size_t n2 = (size_t)n * n;
   if (J) cblas_dgemv(CblasRowMajor, CblasNoTrans, (int)n2, (int)n2, 1.0, eri, (int)n2, D, 1, 0.0, J, 1);
   if (K) {
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if (n >= 40)
     for (int m = 0; m < n; m++) {
       double *km = K + (size_t)m * n;
       for (int v = 0; v < n; v++) km[v] = 0;
@@ -462,6 +462,7 @@ void scf_active_space(const scf_result *r, const int *core, int ncore, const int
   out->nalpha = nalpha;
   out->nbeta = nbeta;
   out->e_nuclear = r->e_nuclear;
+  out->has_nuclear = 1;
   out->e_constant = r->e_nuclear + ecore;
   out->h1 = xmalloc((size_t)m * m * sizeof(double));
   {
@@ -476,7 +477,7 @@ void scf_active_space(const scf_result *r, const int *core, int ncore, const int
   double *A = xmalloc(n2 * n * m * sizeof(double));  /* [mu nu la][s] */
   cblas_dgemm(CblasRowMajor, CblasNoTrans, CblasNoTrans, (int)(n2 * n), m, n, 1.0, r->eri, n, Ca, m, 0.0, A, m);
   double *B = xmalloc(n2 * m2 * sizeof(double));  /* [mu nu][r s] */
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if (n >= 40)
   for (size_t mn = 0; mn < n2; mn++)
     cblas_dgemm(CblasRowMajor, CblasTrans, CblasNoTrans, m, m, n, 1.0, Ca, m, A + mn * n * m, m, 0.0, B + mn * m2,
                 (int)m);
@@ -489,7 +490,7 @@ void scf_active_space(const scf_result *r, const int *core, int ncore, const int
   cblas_dgemm(CblasRowMajor, CblasNoTrans, CblasNoTrans, (int)(m2 * n), m, n, 1.0, Bt, n, Ca, m, 0.0, A2, m);
   free(Bt);
   out->h2 = xmalloc(m2 * m2 * sizeof(double));  /* [r s][p q] = (pq|rs) = (rs|pq) */
-#pragma omp parallel for schedule(static)
+#pragma omp parallel for schedule(static) if (n >= 40)
   for (size_t rs = 0; rs < m2; rs++)
     cblas_dgemm(CblasRowMajor, CblasTrans, CblasNoTrans, m, m, n, 1.0, Ca, m, A2 + rs * n * m, m, 0.0,
                 out->h2 + rs * m2, m);

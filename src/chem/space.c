@@ -31,6 +31,7 @@ void chem_space_select(const chem_space *full, const int *core, int ncore, const
   out->nalpha = nalpha;
   out->nbeta = nbeta;
   out->e_nuclear = full->e_nuclear;
+  out->has_nuclear = full->has_nuclear;
   out->e_constant = full->e_constant + ec;
   out->h1 = xmalloc((size_t)nact * nact * sizeof *out->h1);
   for (int i = 0; i < nact; i++)

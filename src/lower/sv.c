@@ -76,12 +76,15 @@ void sv_set_basis(sv_state *s, uint64_t bits) {
   s->a[bits & (s->dim - 1)] = 1.0;
 }
 
+/* dst = src with memcpy over fixed chunks (also the benchmark's copy: the C
+ * library's copy is the fastest plain one we have). */
 void sv_copy(sv_state *dst, const sv_state *src) {
-  const double *restrict in = (const double *)src->a;
-  double *restrict out = (double *)dst->a;
-  uint64_t len = 2 * src->dim;
-#pragma omp parallel for schedule(static) if (len >= 4 * SV_PAR_MIN)
-  for (uint64_t k = 0; k < len; k++) out[k] = in[k];
+  uint64_t dim = src->dim, cb = 4 * SV_CHUNK, nch = (dim + cb - 1) / cb;
+#pragma omp parallel for schedule(static) if (dim >= 2 * SV_PAR_MIN)
+  for (uint64_t c = 0; c < nch; c++) {
+    uint64_t lo = c * cb, n = lo + cb < dim ? cb : dim - lo;
+    memcpy(dst->a + lo, src->a + lo, (size_t)n * sizeof *dst->a);
+  }
 }
 
 /* Sum of nch chunk results in chunk order (the fixed-order half of every
@@ -162,59 +165,83 @@ typedef struct kparams {
   double eps;    /* (-1)^ny */
 } kparams;
 
-/* f b, where f is real (F1 only) or imaginary (F2 only): fim says which. */
-static inline __attribute__((always_inline)) sv_v2 kmul(const kparams *k, int fim, sv_v2 b) {
-  return fim ? k->F2 * sv_swap(b) : k->F1 * b;
+/* W(b) = b or swap(b): the lane order f multiplies (fim: f imaginary). */
+static inline __attribute__((always_inline)) sv_v2 wlanes(int fim, sv_v2 b) { return fim ? sv_swap(b) : b; }
+
+/* Per-call tables, for the two parities sb of a block (index 0: +1, 1: -1),
+ * indexed by the row l in the block: the sign sigma = sb row[l] and
+ * sigma eps as lane pairs, and the same times f's lanes (F1 or F2). */
+typedef struct ktab {
+  sv_v2 sg[2][BLK], se[2][BLK]; /* sigma, sigma eps */
+  sv_v2 fj[2][BLK], fi[2][BLK]; /* sigma f (row j), sigma eps f (row i) */
+} ktab;
+
+static void ktab_build(ktab *t, const kparams *k, int fim, const double *row) {
+  sv_v2 F = fim ? k->F2 : k->F1;
+  for (int s = 0; s < 2; s++)
+    for (unsigned l = 0; l < BLK; l++) {
+      double sg = (s ? -1.0 : 1.0) * row[l];
+      t->sg[s][l] = (sv_v2){sg, sg};
+      t->se[s][l] = (sv_v2){sg * k->eps, sg * k->eps};
+      t->fj[s][l] = sg * F;
+      t->fi[s][l] = (sg * k->eps) * F;
+    }
 }
 
-/* One pair: a (the conjugated vector of the inner product, or NULL) and b. */
-static inline __attribute__((always_inline)) void pair_step(pair_op op, int fim, const kparams *k, double sg,
-                                                            sv_v2 *restrict a, sv_v2 *restrict b, uint64_t i,
-                                                            uint64_t j, sv_v2 *acc) {
-  sv_v2 bi = b[i], bj = b[j];
-  double se = sg * k->eps;
+/* One pair (i, j) at row l of a block with parity index s: a (the vector
+ * conjugated in the inner product, or NULL) and b. */
+static inline __attribute__((always_inline)) void pair_step(pair_op op, int fim, const kparams *k, const ktab *t,
+                                                            int s, unsigned l, sv_v2 *restrict pa, sv_v2 *restrict qa,
+                                                            sv_v2 *restrict pb, sv_v2 *restrict qb, sv_v2 *acc) {
+  /* pb, qb: rows i and j of b; pa, qa: of a */
+  sv_v2 bi = *pb, bj = *qb;
   if (op == OP_INNER || op == OP_INNER_ROTATE) {
     /* eps conj(a_i) b_j + conj(a_j) b_i, times sigma_i; the phase i^ny later */
-    sv_v2 ai = a[i], aj = a[j];
-    sv_v2 t1 = se * ai, t2 = sg * aj;
+    sv_v2 ai = *pa, aj = *qa;
+    sv_v2 t1 = t->se[s][l] * ai, t2 = t->sg[s][l] * aj;
     acc[0] += t1 * bj + t2 * bi;                   /* lanes (ar br, ai bi) */
     acc[1] += t1 * sv_swap(bj) + t2 * sv_swap(bi); /* lanes (ar bi, ai br) */
     if (op == OP_INNER_ROTATE) {
-      a[i] = k->C * ai + se * kmul(k, fim, aj);
-      a[j] = k->C * aj + sg * kmul(k, fim, ai);
+      *pa = k->C * ai + t->fi[s][l] * wlanes(fim, aj);
+      *qa = k->C * aj + t->fj[s][l] * wlanes(fim, ai);
     }
   }
   if (op == OP_ROTATE || op == OP_INNER_ROTATE) {
-    b[i] = k->C * bi + se * kmul(k, fim, bj);
-    b[j] = k->C * bj + sg * kmul(k, fim, bi);
+    *pb = k->C * bi + t->fi[s][l] * wlanes(fim, bj);
+    *qb = k->C * bj + t->fj[s][l] * wlanes(fim, bi);
   } else if (op == OP_WORD) {
-    b[i] = se * kmul(k, fim, bj);
-    b[j] = sg * kmul(k, fim, bi);
+    *pb = t->fi[s][l] * wlanes(fim, bj);
+    *qb = t->fj[s][l] * wlanes(fim, bi);
   }
 }
 
 /* Blocks [q0, q1) of the pass (see pairs_pass); specialized by the inliner
  * for each (op, fim). */
-static inline __attribute__((always_inline)) void pairs_chunk(pair_op op, int fim, const kparams *k, sv_v2 *restrict a,
-                                                              sv_v2 *restrict b, uint64_t q0, uint64_t q1, int p,
-                                                              uint64_t x, uint64_t z, const double *row,
-                                                              sv_v2 *acc) {
+static inline __attribute__((always_inline)) void pairs_chunk(pair_op op, int fim, const kparams *k, const ktab *t,
+                                                              sv_v2 *restrict a, sv_v2 *restrict b, uint64_t q0,
+                                                              uint64_t q1, int p, uint64_t x, uint64_t z,
+                                                              const unsigned char *lows, sv_v2 *acc) {
   uint64_t xl = x & (BLK - 1), xh = x & ~(uint64_t)(BLK - 1);
   for (uint64_t q = q0; q < q1; q++) {
     uint64_t base = (p >= 6 ? sv_insert0(q, p - 6) : q) * BLK, jb = base ^ xh;
-    double sb = sv_parity(base & z) ? -1.0 : 1.0;
-    if (p >= 6) {
-      for (unsigned l = 0; l < BLK; l++) pair_step(op, fim, k, sb * row[l], a, b, base + l, jb + (l ^ xl), acc);
+    int s = (int)sv_parity(base & z);
+    sv_v2 *ab = a ? a + base : NULL, *aj = a ? a + jb : NULL, *bb = b + base, *bj = b + jb;
+    if (p >= 6 && xl == 0) { /* partner rows in the same order */
+      for (unsigned l = 0; l < BLK; l++) pair_step(op, fim, k, t, s, l, ab + l, aj + l, bb + l, bj + l, acc);
+    } else if (p >= 6) {
+      for (unsigned l = 0; l < BLK; l++)
+        pair_step(op, fim, k, t, s, l, ab + l, aj + (l ^ xl), bb + l, bj + (l ^ xl), acc);
     } else {
       for (unsigned h = 0; h < BLK / 2; h++) {
-        unsigned l = (unsigned)sv_insert0(h, p);
-        pair_step(op, fim, k, sb * row[l], a, b, base + l, base + (l ^ xl), acc);
+        unsigned l = lows[h];
+        pair_step(op, fim, k, t, s, l, ab + l, ab + (l ^ xl), bb + l, bb + (l ^ xl), acc);
       }
     }
   }
 }
 
-#define PAIRS_CHUNK(OP, ...) (fim ? pairs_chunk(OP, 1, __VA_ARGS__) : pairs_chunk(OP, 0, __VA_ARGS__))
+#define PAIRS_CHUNK(OP, ...) (fim ? pairs_chunk(OP, 1, k, &t, __VA_ARGS__) : pairs_chunk(OP, 0, k, &t, __VA_ARGS__))
+
 
 /* Every pair of the register, in chunks of blocks; returns the sum of the
  * per-chunk accumulators (in chunk order) as (re, im) of sum conj(a) ... . */
@@ -223,12 +250,16 @@ static double complex pairs_pass(pair_op op, int fim, const kparams *k, sv_v2 *r
   int p = sv_top_bit(x);
   double row[BLK];
   sign_row(z & (BLK - 1), row);
+  ktab t;
+  ktab_build(&t, k, fim, row);
+  unsigned char lows[BLK / 2]; /* rows of a block with bit p clear (p < 6) */
+  for (unsigned h = 0; h < BLK / 2; h++) lows[h] = (unsigned char)(p < 6 ? sv_insert0(h, p) : h);
   int inner = op == OP_INNER || op == OP_INNER_ROTATE;
-  if (dim < BLK) { /* small registers: pairs one by one */
+  if (dim < BLK) { /* small registers: one block, pairs one by one */
     sv_v2 acc[2] = {{0, 0}, {0, 0}};
     for (uint64_t q = 0; q < dim / 2; q++) {
       uint64_t i = sv_insert0(q, p);
-      pair_step(op, fim, k, sv_parity(i & z) ? -1.0 : 1.0, a, b, i, i ^ x, acc);
+      pair_step(op, fim, k, &t, 0, (unsigned)i, a ? a + i : NULL, a ? a + (i ^ x) : NULL, b + i, b + (i ^ x), acc);
     }
     return CMPLX(acc[0][0] + acc[0][1], acc[1][0] - acc[1][1]);
   }
@@ -242,10 +273,10 @@ static double complex pairs_pass(pair_op op, int fim, const kparams *k, sv_v2 *r
     sv_v2 acc[2] = {{0, 0}, {0, 0}};
     uint64_t q0 = ch * cb, q1 = (ch + 1) * cb < nvis ? (ch + 1) * cb : nvis;
     switch (op) {
-    case OP_ROTATE: PAIRS_CHUNK(OP_ROTATE, k, a, b, q0, q1, p, x, z, row, acc); break;
-    case OP_WORD: PAIRS_CHUNK(OP_WORD, k, a, b, q0, q1, p, x, z, row, acc); break;
-    case OP_INNER: PAIRS_CHUNK(OP_INNER, k, a, b, q0, q1, p, x, z, row, acc); break;
-    case OP_INNER_ROTATE: PAIRS_CHUNK(OP_INNER_ROTATE, k, a, b, q0, q1, p, x, z, row, acc); break;
+    case OP_ROTATE: PAIRS_CHUNK(OP_ROTATE, a, b, q0, q1, p, x, z, lows, acc); break;
+    case OP_WORD: PAIRS_CHUNK(OP_WORD, a, b, q0, q1, p, x, z, lows, acc); break;
+    case OP_INNER: PAIRS_CHUNK(OP_INNER, a, b, q0, q1, p, x, z, lows, acc); break;
+    case OP_INNER_ROTATE: PAIRS_CHUNK(OP_INNER_ROTATE, a, b, q0, q1, p, x, z, lows, acc); break;
     }
     if (inner) {
       part[2 * ch] = acc[0][0] + acc[0][1];
@@ -257,40 +288,66 @@ static double complex pairs_pass(pair_op op, int fim, const kparams *k, sv_v2 *r
   return r;
 }
 
+/* Per-call tables of a diagonal pass, for the two block parities: sigma and
+ * sigma S as lane pairs (S = (s, -s): the sine part of c - i s sigma). */
+typedef struct dtab {
+  sv_v2 sg[2][BLK], ss[2][BLK];
+} dtab;
+
+/* Blocks [q0, q1) of a diagonal pass (inlined per operation). */
+static inline __attribute__((always_inline)) void diag_chunk(pair_op op, sv_v2 C, const dtab *t, sv_v2 *restrict a,
+                                                             sv_v2 *restrict b, uint64_t q0, uint64_t q1, uint64_t bl,
+                                                             uint64_t z, sv_v2 *acc) {
+  int inner = op == OP_INNER || op == OP_INNER_ROTATE;
+  for (uint64_t q = q0; q < q1; q++) {
+    uint64_t base = q * bl;
+    int s = (int)sv_parity(base & z);
+    sv_v2 *ab = a ? a + base : NULL, *bb = b + base;
+    const sv_v2 *sg = t->sg[s], *ss = t->ss[s];
+    for (unsigned l = 0; l < bl; l++) {
+      sv_v2 bi = bb[l];
+      if (inner) {
+        sv_v2 ai = ab[l], sa = sg[l] * ai;
+        acc[0] += sa * bi;
+        acc[1] += sa * sv_swap(bi);
+        if (op == OP_INNER_ROTATE) ab[l] = C * ai + ss[l] * sv_swap(ai);
+      }
+      if (op == OP_ROTATE || op == OP_INNER_ROTATE) bb[l] = C * bi + ss[l] * sv_swap(bi);
+      else if (op == OP_WORD) bb[l] = sg[l] * bi;
+    }
+  }
+}
+
 /* Diagonal words (x = 0): a_i <- (c - i s sigma_i) a_i, or <a|Z^z|b>. */
 static double complex diag_pass(pair_op op, double c, double s, sv_v2 *restrict a, sv_v2 *restrict b, uint64_t dim,
                                 uint64_t z) {
   double row[BLK];
   sign_row(z & (BLK - 1), row);
+  dtab t;
+  for (int k = 0; k < 2; k++)
+    for (unsigned l = 0; l < BLK; l++) {
+      double sg = (k ? -1.0 : 1.0) * row[l];
+      t.sg[k][l] = (sv_v2){sg, sg};
+      t.ss[k][l] = (sv_v2){sg * s, -sg * s}; /* (c - i s)(x + iy) = (c x + s y, c y - s x) */
+    }
   uint64_t bl = dim < BLK ? dim : BLK, nblk = dim / bl, cb = SV_CHUNK / bl, nch = (nblk + cb - 1) / cb;
   int inner = op == OP_INNER || op == OP_INNER_ROTATE;
-  const sv_v2 C = {c, c}, S = {s, -s}; /* (c - i s)(x + iy) = (c x + s y, c y - s x) */
+  const sv_v2 C = {c, c};
   parts ps;
   double *part = parts_get(&ps, inner ? nch : 1);
 #pragma omp parallel for schedule(static) if (dim >= 2 * SV_PAR_MIN)
   for (uint64_t ch = 0; ch < nch; ch++) {
-    sv_v2 a1 = {0, 0}, a2 = {0, 0};
-    uint64_t b1 = (ch + 1) * cb < nblk ? (ch + 1) * cb : nblk;
-    for (uint64_t q = ch * cb; q < b1; q++) {
-      uint64_t base = q * bl;
-      double sb = sv_parity(base & z) ? -1.0 : 1.0;
-      for (unsigned l = 0; l < bl; l++) {
-        uint64_t i = base + l;
-        double sg = sb * row[l];
-        sv_v2 bi = b[i];
-        if (inner) {
-          sv_v2 ai = sg * a[i];
-          a1 += ai * bi;
-          a2 += ai * sv_swap(bi);
-          if (op == OP_INNER_ROTATE) a[i] = C * a[i] + sg * S * sv_swap(a[i]);
-        }
-        if (op == OP_ROTATE || op == OP_INNER_ROTATE) b[i] = C * bi + sg * S * sv_swap(bi);
-        else if (op == OP_WORD) b[i] = sg * bi;
-      }
+    sv_v2 acc[2] = {{0, 0}, {0, 0}};
+    uint64_t q0 = ch * cb, q1 = (ch + 1) * cb < nblk ? (ch + 1) * cb : nblk;
+    switch (op) {
+    case OP_ROTATE: diag_chunk(OP_ROTATE, C, &t, a, b, q0, q1, bl, z, acc); break;
+    case OP_WORD: diag_chunk(OP_WORD, C, &t, a, b, q0, q1, bl, z, acc); break;
+    case OP_INNER: diag_chunk(OP_INNER, C, &t, a, b, q0, q1, bl, z, acc); break;
+    case OP_INNER_ROTATE: diag_chunk(OP_INNER_ROTATE, C, &t, a, b, q0, q1, bl, z, acc); break;
     }
     if (inner) {
-      part[2 * ch] = a1[0] + a1[1];
-      part[2 * ch + 1] = a2[0] - a2[1];
+      part[2 * ch] = acc[0][0] + acc[0][1];
+      part[2 * ch + 1] = acc[1][0] - acc[1][1];
     }
   }
   double complex r = inner ? sum_parts(part, nch) : 0;

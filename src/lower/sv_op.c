@@ -117,7 +117,9 @@ typedef struct op_build {  /* growable arrays of sv_op while compiling */
   size_t capg, caps, capp, capt;
 } op_build;
 
-/* Compile the terms [t0, t1) (one X mask, sorted by z) into a group. */
+/* Compile the nt terms at t (one X mask) into a group: split bits, block
+ * layout, and for every value of the split bits the merged terms (dropping
+ * sub-cubes where they all cancel). */
 static void build_group(sv_op *op, op_build *b, raw_term *t, size_t nt, uint64_t topm) {
   int n = op->n;
   uint64_t all = n >= 64 ? ~(uint64_t)0 : (((uint64_t)1 << n) - 1);

@@ -2,7 +2,14 @@
 #ifndef CAIRN_SV_PRIV_H
 #define CAIRN_SV_PRIV_H
 
+#include <complex.h>
 #include <stdint.h>
+
+/* C11's CMPLX; glibc leaves it out for compilers without __builtin_complex
+ * (clang).  The fallback is exact for finite parts, all we build. */
+#ifndef CMPLX
+#define CMPLX(x, y) ((double complex)((double)(x) + I * (double)(y)))
+#endif
 
 /* Reductions sum fixed chunks of this many elements (pairs or amplitudes),
  * then the chunk sums in order: the same bits for any thread count. */
@@ -32,11 +39,13 @@ static inline int sv_top_bit(uint64_t v) { return 63 - __builtin_clzll(v); }
 typedef double sv_v2 __attribute__((vector_size(16), may_alias));
 typedef long long sv_v2i __attribute__((vector_size(16)));
 /* (re, im) -> (im, re) */
+static inline sv_v2 sv_swap(sv_v2 a) {
 #if defined(__clang__)
-static inline sv_v2 sv_swap(sv_v2 a) { return __builtin_shufflevector(a, a, 1, 0); }
+  return __builtin_shufflevector(a, a, 1, 0);
 #else
-static inline sv_v2 sv_swap(sv_v2 a) { return __builtin_shuffle(a, (sv_v2i){1, 0}); }
+  return __builtin_shuffle(a, (sv_v2i){1, 0});
 #endif
+}
 
 /* Software pdep / pext on masks (compile-time tables only). */
 static inline uint64_t sv_deposit(uint64_t v, uint64_t mask) {

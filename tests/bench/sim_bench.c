@@ -6,11 +6,19 @@
  *   sim_bench evalgrad FILE REPEATS
  *       median seconds of one energy + gradient evaluation (and of its parts)
  *       of the job in FILE (the sim_driver format: hamiltonian, circuit,
- *       theta), with the energy and gradient for the cross-check.
+ *       theta), with the energy and gradient for the cross-check;
+ *   sim_bench molecule NORB NELEC REPEATS
+ *       a molecule-shaped register of 2 NORB qubits: the Jordan-Wigner
+ *       Hamiltonian (cairn's qubit module) of random real integrals with the
+ *       8-fold symmetry, 16 entanglers and every double excitation of the
+ *       NELEC-electron reference; median seconds of O|psi> and of energy +
+ *       gradient (speed only, not chemistry).
  * Output: one JSON object on stdout. */
 #include "config.h"
 
+#include "cairn/chem.h"
 #include "cairn/json.h"
+#include "cairn/qubit.h"
 #include "cairn/sim.h"
 #include "cairn/util.h"
 
@@ -57,7 +65,7 @@ static int bench_rotation(int n, int reps) {
   sv_state_alloc(&b, n);
   util_rng r;
   util_rng_seed(&r, 1);
-  for (uint64_t i = 0; i < a.dim; i++) a.a[i] = CMPLX(util_rng_uniform(&r) - 0.5, util_rng_uniform(&r) - 0.5);
+  for (uint64_t i = 0; i < a.dim; i++) a.a[i] = (util_rng_uniform(&r) - 0.5) + I * (util_rng_uniform(&r) - 0.5);
   double bytes = 2.0 * (double)sv_vector_bytes(n); /* one read and one write of a vector */
   double *t = xmalloc((size_t)reps * sizeof *t);
   printf("{\"qubits\": %d, \"threads\": %d, \"vector_bytes\": %.0f, \"repeats\": %d", n, threads(), bytes / 2,
@@ -169,9 +177,126 @@ static int bench_evalgrad(const char *path, int reps) {
   return 0;
 }
 
+/* Random real integrals with the symmetries of real orbitals (h1 symmetric,
+ * (pq|rs) 8-fold symmetric), scaled like a small molecule's. */
+static void random_space(int norb, int nelec, util_rng *r, chem_space *s) {
+  memset(s, 0, sizeof *s);
+  s->norb = norb;
+  s->nalpha = (nelec + 1) / 2;
+  s->nbeta = nelec / 2;
+  s->h1 = xcalloc((size_t)norb * norb, sizeof *s->h1);
+  s->h2 = xcalloc((size_t)norb * norb * norb * norb, sizeof *s->h2);
+  for (int p = 0; p < norb; p++)
+    for (int q = 0; q <= p; q++) s->h1[p * norb + q] = s->h1[q * norb + p] = util_rng_uniform(r) - 0.5 - (p == q ? 2 : 0);
+  for (int p = 0; p < norb; p++)
+    for (int q = 0; q <= p; q++)
+      for (int a = 0; a < norb; a++)
+        for (int b = 0; b <= a; b++) {
+          if (p * norb + q < a * norb + b) continue;
+          double v = 0.1 * (util_rng_uniform(r) - 0.5);
+          int idx[8][4] = {{p, q, a, b}, {q, p, a, b}, {p, q, b, a}, {q, p, b, a},
+                           {a, b, p, q}, {b, a, p, q}, {a, b, q, p}, {b, a, q, p}};
+          for (int k = 0; k < 8; k++) s->h2[chem_h2_index(norb, idx[k][0], idx[k][1], idx[k][2], idx[k][3])] = v;
+        }
+}
+
+/* G = 2i (T - T^+) of the double i j -> a b as words under one parameter. */
+static void push_double(ans_circuit *c, const qubit_encoder *enc, int i, int j, int a, int b, int gen, int param) {
+  pauli_acc *acc = pauli_acc_new(c->nqubits, 16);
+  qubit_ladder t[4] = {{a, 1}, {b, 1}, {j, 0}, {i, 0}}, td[4] = {{i, 1}, {j, 1}, {b, 0}, {a, 0}};
+  qubit_encoder_add_product(enc, t, 4, 2.0 * I, acc);
+  qubit_encoder_add_product(enc, td, 4, -2.0 * I, acc);
+  pauli_sum G;
+  pauli_sum_init(&G, c->nqubits);
+  pauli_acc_finish(acc, &G, 1e-14);
+  for (size_t k = 0; k < G.len; k++)
+    ans_circuit_push(c, ans_circuit_word(c, pauli_sum_x(&G, k), pauli_sum_z(&G, k)), param, creal(G.c[k]), gen);
+  pauli_sum_free(&G);
+}
+
+static double time_evalgrad(sim_engine *e, const double *theta, double *grad, int reps) {
+  double *t = xmalloc((size_t)reps * sizeof *t);
+  sim_energy_grad(e, theta, grad);
+  for (int k = 0; k < reps; k++) {
+    double t0 = util_now();
+    sim_energy_grad(e, theta, grad);
+    t[k] = util_now() - t0;
+  }
+  double m = median(t, reps);
+  free(t);
+  return m;
+}
+
+static int bench_molecule(int norb, int nelec, int reps) {
+  int n = 2 * norb;
+  util_rng r;
+  util_rng_seed(&r, 3);
+  chem_space sp;
+  random_space(norb, nelec, &r, &sp);
+  qubit_encoder *enc = qubit_encoder_new(IR_ENC_JORDAN_WIGNER, n);
+  pauli_sum H;
+  pauli_sum_init(&H, n);
+  double t0 = util_now();
+  qubit_hamiltonian(&sp, enc, &H);
+  double t_ham = util_now() - t0;
+  char err[300];
+  /* program 1: 16 entanglers on weight-4 flip sets of H (one Y each) */
+  ans_circuit ce, cu;
+  ans_circuit_init(&ce, n);
+  ans_circuit_init(&cu, n);
+  ce.init[0] = cu.init[0] = ((uint64_t)1 << nelec) - 1;
+  ans_gen_info gi = {.kind = ANS_ENTANGLER, .text = "e", .rule = -1};
+  int got = 0;
+  for (size_t k = 0; k < H.len && got < 16; k += 1 + H.len / 64) {
+    uint64_t x = pauli_sum_x(&H, k)[0];
+    if (__builtin_popcountll(x) != 4) continue;
+    uint64_t z = x & -x;
+    int g = ans_circuit_add_gen(&ce, &gi);
+    ans_circuit_push(&ce, ans_circuit_word(&ce, &x, &z), ans_circuit_add_param(&ce, g), 1.0, g);
+    got++;
+  }
+  /* program 2: every spin-conserving double of the reference */
+  gi.kind = ANS_DOUBLE;
+  for (int i = 0; i < nelec; i++)
+    for (int j = i + 1; j < nelec; j++)
+      for (int a = nelec; a < n; a++)
+        for (int b = a + 1; b < n; b++) {
+          if ((i % 2) + (j % 2) != (a % 2) + (b % 2)) continue;
+          int g = ans_circuit_add_gen(&cu, &gi);
+          push_double(&cu, enc, i, j, a, b, g, ans_circuit_add_param(&cu, g));
+        }
+  printf("{\"qubits\": %d, \"threads\": %d, \"terms\": %zu, \"hamiltonian_seconds\": %.3g", n, threads(), H.len,
+         t_ham);
+  sim_engine *e = sim_engine_new(&ce, &H, err, sizeof err);
+  if (!e) {
+    printf(", \"refused\": \"%s\"}\n", err);
+    return 0;
+  }
+  double *theta = xcalloc((size_t)cu.nparams + 16, sizeof *theta), *grad = xcalloc((size_t)cu.nparams + 16, sizeof *grad);
+  for (int p = 0; p < cu.nparams + 16; p++) theta[p] = 0.1 * (util_rng_uniform(&r) - 0.5);
+  char b1[32];
+  printf(", \"engine_bytes\": \"%s\"", sv_fmt_bytes(b1, sim_engine_bytes(n, H.len)));
+  printf(", \"entanglers\": {\"rotations\": %zu, \"evalgrad_seconds\": %.4g}", ce.nrot,
+         time_evalgrad(e, theta, grad, reps));
+  sim_engine_free(e);
+  e = sim_engine_new(&cu, &H, err, sizeof err);
+  printf(", \"doubles\": {\"generators\": %d, \"rotations\": %zu, \"steps\": %zu, \"evalgrad_seconds\": %.4g}}\n",
+         cu.nparams, cu.nrot, sim_engine_steps(e), time_evalgrad(e, theta, grad, reps));
+  sim_engine_free(e);
+  free(theta);
+  free(grad);
+  ans_circuit_free(&ce);
+  ans_circuit_free(&cu);
+  pauli_sum_free(&H);
+  qubit_encoder_free(enc);
+  chem_space_free(&sp);
+  return 0;
+}
+
 int main(int argc, char **argv) {
   if (argc == 4 && strcmp(argv[1], "rotation") == 0) return bench_rotation(atoi(argv[2]), atoi(argv[3]));
   if (argc == 4 && strcmp(argv[1], "evalgrad") == 0) return bench_evalgrad(argv[2], atoi(argv[3]));
-  fprintf(stderr, "usage: sim_bench rotation NQUBITS REPEATS | evalgrad FILE REPEATS\n");
+  if (argc == 5 && strcmp(argv[1], "molecule") == 0) return bench_molecule(atoi(argv[2]), atoi(argv[3]), atoi(argv[4]));
+  fprintf(stderr, "usage: sim_bench rotation NQUBITS REPEATS | evalgrad FILE REPEATS | molecule NORB NELEC REPEATS\n");
   return 2;
 }

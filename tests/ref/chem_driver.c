@@ -124,6 +124,7 @@ int main(int argc, char **argv) {
   r.multiplicity = mult;
   r.charge = charge;
   ir_point pt = {0};
+  int status = 0;
   int nmo = 0, nalpha_all, nbeta_all;
   double t0 = util_now();
   if (fcidump) {
@@ -131,25 +132,31 @@ int main(int argc, char **argv) {
     r.integrals_file = xstrdup(fcidump);
     int norb, nelec, ms2;
     if (chem_fcidump_header(fcidump, DIAG_NOWHERE, d, &norb, &nelec, &ms2) != 0) {
-      diag_free(d);
-      return 1;
+      status = 1;
+      goto done;
     }
     nmo = norb;
     nalpha_all = (nelec + ms2) / 2;
     nbeta_all = (nelec - ms2) / 2;
     r.nelectrons = nelec;
   } else {
-    if (!atoms || (!basis && !basis_file)) return usage("give --atoms and --basis (or --fcidump)");
+    if (!atoms || (!basis && !basis_file)) {
+      status = usage("give --atoms and --basis (or --fcidump)");
+      goto done;
+    }
     r.problem = IR_PROBLEM_ATOMS;
-    if (parse_atoms(atoms, angstrom, &pt.atoms, &r.natoms) != 0) return usage("bad --atoms");
+    if (parse_atoms(atoms, angstrom, &pt.atoms, &r.natoms) != 0) {
+      status = usage("bad --atoms");
+      goto done;
+    }
     r.points = &pt;
     r.npoints = 1;
     if (basis) r.basis_name = xstrdup(basis);
     if (basis_file) r.basis_file = xstrdup(basis_file);
     nmo = chem_count_orbitals(&r, d);
     if (nmo < 0) {
-      diag_free(d);
-      return 1;
+      status = 1;
+      goto done;
     }
     int ne = -charge;
     for (int k = 0; k < r.natoms; k++) ne += pt.atoms[k].z;
@@ -165,14 +172,20 @@ int main(int argc, char **argv) {
   r.orbitals.core = xmalloc((size_t)(core > 0 ? core : 1) * sizeof(int));
   for (int k = 0; k < core; k++) r.orbitals.core[k] = k;
   int nact = active >= 0 ? active : nmo - core;
-  if (core < 0 || nact < 0 || core + nact > nmo || core > nbeta_all) return usage("bad --core/--active");
+  if (core < 0 || nact < 0 || core + nact > nmo || core > nbeta_all) {
+    status = usage("bad --core/--active");
+    goto done;
+  }
   r.orbitals.nactive = nact;
   r.orbitals.active = xmalloc((size_t)(nact > 0 ? nact : 1) * sizeof(int));
   for (int k = 0; k < nact; k++) r.orbitals.active[k] = core + k;
   r.orbitals.nalpha = nalpha_all - core;
   r.orbitals.nbeta = nbeta_all - core;
   r.orbitals.nelec_active = r.orbitals.nalpha + r.orbitals.nbeta;
-  if (r.orbitals.nalpha > nact) return usage("the active space cannot hold the electrons");
+  if (r.orbitals.nalpha > nact) {
+    status = usage("the active space cannot hold the electrons");
+    goto done;
+  }
 
   chem_space s;
   chem_refs refs;
@@ -186,7 +199,7 @@ int main(int argc, char **argv) {
     cJSON_AddItemToObject(j, "nalpha", cJSON_CreateNumber(s.nalpha));
     cJSON_AddItemToObject(j, "nbeta", cJSON_CreateNumber(s.nbeta));
     cJSON_AddItemToObject(j, "constant", json_number(s.e_constant));
-    if (!fcidump) cJSON_AddItemToObject(j, "nuclear", json_number(s.e_nuclear));
+    if (s.has_nuclear) cJSON_AddItemToObject(j, "nuclear", json_number(s.e_nuclear));
     if (refs.has_hf) cJSON_AddItemToObject(j, "hf", json_number(refs.hf));
     cJSON_AddItemToObject(j, "reference", json_number(chem_reference_energy(&s)));
     cJSON_AddItemToObject(j, "scf_iterations", cJSON_CreateNumber(refs.scf_iterations));
@@ -239,6 +252,8 @@ int main(int argc, char **argv) {
     free(txt);
   }
   cJSON_Delete(j);
+  status = rc == 0 ? 0 : 1;
+done:
   free(r.path);
   free(r.basis_name);
   free(r.basis_file);
@@ -247,5 +262,5 @@ int main(int argc, char **argv) {
   free(r.orbitals.active);
   free(pt.atoms);
   diag_free(d);
-  return rc == 0 ? 0 : 1;
+  return status;
 }

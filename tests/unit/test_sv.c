@@ -67,7 +67,10 @@ static void random_letters(util_rng *r, int n, char *letters) {
 }
 
 static void random_state(util_rng *r, sv_state *s) {
-  for (uint64_t i = 0; i < s->dim; i++) s->a[i] = CMPLX(util_rng_uniform(r) - 0.5, util_rng_uniform(r) - 0.5);
+  for (uint64_t i = 0; i < s->dim; i++) {
+    double re = util_rng_uniform(r) - 0.5, im = util_rng_uniform(r) - 0.5;
+    s->a[i] = re + I * im;
+  }
 }
 
 static void matvec(uint64_t dim, const double complex *M, const double complex *v, double complex *out) {
@@ -185,7 +188,8 @@ static void test_op_matches_dense(void **state) {
         if (t > 0 && (t % 3) == 0)
           for (int q = 0; q < n; q++)
             if (letters[q] == 'Z') letters[q] = 'I';
-        double complex c = CMPLX(util_rng_uniform(&r) - 0.5, (trial & 1) ? util_rng_uniform(&r) - 0.5 : 0);
+        double cre = util_rng_uniform(&r) - 0.5, cim = (trial & 1) ? util_rng_uniform(&r) - 0.5 : 0;
+        double complex c = cre + I * cim;
         char *dense = letters; /* pauli_word_parse takes dense text */
         pauli_sum_add_text(&s, dense, c);
         double complex *P = dense_word(n, letters);
