@@ -118,7 +118,7 @@ def cmd_run(args):
     print("| N | " + " | ".join(str(k) for k in range(5, 11)) + " |")
     print("|---|" + "---|" * 6)
     print("| E / Eh | " + " | ".join(f"{mins[k]:.6f}" for k in range(5, 11)) + " |")
-    print(f"\nstudy: {len(MUS)} recipes, {time.time() - t0:.0f} s wall")
+    print(f"\nstudy: {len(MUS)} recipes, {time.time() - t0:.1f} s wall")
     print("command: /usr/bin/python3 tools/accept/particles.py run")
     return 0
 

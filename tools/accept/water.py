@@ -145,6 +145,23 @@ def cell(p):
     return f"{err * 1e3:.2f} {mark(p['error'])} · {s['particles']:.3f} · {s['spin_squared']:.2f}"
 
 
+def reach(pts):
+    """The largest r up to which every point from the first is within 1.6 mEh, or None."""
+    last = None
+    for p in pts:
+        if abs(p["error"]) > CHEM_ACC:
+            break
+        last = rval(p)
+    return last
+
+
+def summary_cell(pts):
+    ok = sum(abs(p["error"]) <= CHEM_ACC for p in pts)
+    r = reach(pts)
+    upto = f"to {r:.1f} Å" if r is not None else "none"
+    return f"{ok}/10 · {upto} · {max(abs(p['error']) for p in pts) * 1e3:.1f}"
+
+
 def spread(p):
     e = p["optimizer"].get("start_energies", [])
     return max(e) - min(e) if e else 0.0
@@ -185,25 +202,22 @@ def print_tables(reports):
                         print(f"| {rval(pts[0][i]):.1f} | " + " | ".join(cell(pt[i]) for pt in pts) + " |")
                     sp_max = max(spread(p) for pt in pts for p in pt)
                     print(f"\nlargest spread of the final energies over the 8 starts: {sp_max * 1e3:.3g} mEh\n")
-    print("### Summary: points (of 10) within 1.6 mEh, and the largest |error| / mEh\n")
+    print("### Summary\n")
+    print("Each cell: points (of 10) within 1.6 mEh · the bond length up to which every point from 0.8 Å is "
+          "within · the largest |error| / mEh.\n")
     print("| active space | recipe | " + " | ".join(f"N = {n}" for n in NS) + " |")
     print("|---|---|" + "---|" * len(NS))
     for sp in SPACES:
         u = reports[f"water-{sp}-uccsd"]["points"]
-        ok = sum(abs(p["error"]) <= CHEM_ACC for p in u)
-        worst = max(abs(p["error"]) for p in u) * 1e3
-        print(f"| ({sp[0]}e,{sp[1]}o) | UCCSD, 1 step | {ok}/10, {worst:.1f} (all generators) |" + " |" * (len(NS) - 1))
+        print(f"| ({sp[0]}e,{sp[1]}o) | UCCSD, 1 step (all generators) | {summary_cell(u)} |" + " |" * (len(NS) - 1))
         for pen in (False, True):
             for ref in REFS:
                 if pen and ref == "hf":
                     continue
                 for sel in ("choose", "grow"):
-                    row = []
-                    for n in NS:
-                        pts = reports[f"water-{sp}-{ref}-{sel}-{n:02d}" + ("-s2pen" if pen else "")]["points"]
-                        ok = sum(abs(p["error"]) <= CHEM_ACC for p in pts)
-                        row.append(f"{ok}/10, {max(abs(p['error']) for p in pts) * 1e3:.1f}")
-                    what = f"{REFS[ref]}, {'choose' if sel == 'choose' else 'grow'}" + (", S² penalty" if pen else "")
+                    row = [summary_cell(reports[f"water-{sp}-{ref}-{sel}-{n:02d}" + ("-s2pen" if pen else "")]["points"])
+                           for n in NS]
+                    what = f"{REFS[ref]}, {sel}" + (", S² penalty" if pen else "")
                     print(f"| ({sp[0]}e,{sp[1]}o) | {what} | " + " | ".join(row) + " |")
     print()
     # mean-field against Hartree-Fock: the same energies?  Per point, the
@@ -257,14 +271,22 @@ def cmd_run(args):
             secs[name] = s
     wall = time.time() - t0
     ru = resource.getrusage(resource.RUSAGE_CHILDREN)
+    stamp = os.path.join(out, "study-time.txt")
+    if reuse and os.path.exists(stamp):
+        with open(stamp) as f:
+            timing = f.read().strip() + f" (reports reused from {out})"
+    else:
+        timing = (f"study: {len(names)} recipes × 10 points, {wall:.0f} s wall, {ru.ru_utime + ru.ru_stime:.0f} s CPU "
+                  f"in cairn, -j {jobs}; slowest recipe {max(secs, key=secs.get)} {max(secs.values()):.0f} s")
+        if only is None:
+            with open(stamp, "w") as f:
+                f.write(timing + "\n")
     if only is None:
         print_tables(reports)
     else:
         for n in names:
             print(n, " ".join(f"{rval(p):.1f}:{cell(p)}" for p in reports[n]["points"]))
-    print(f"study: {len(names)} recipes × 10 points, {wall:.0f} s wall, {ru.ru_utime + ru.ru_stime:.0f} s CPU "
-          f"in cairn, -j {jobs}; slowest recipe {max(secs, key=secs.get)} {max(secs.values()):.0f} s")
-    print(f"command: /usr/bin/python3 tools/accept/water.py run -j {jobs}" + (" --reuse" if reuse else ""))
+    print(timing)
     return 0
 
 
