@@ -49,6 +49,7 @@ def main():
     src = os.environ.get("CAIRN_SRCDIR", os.path.join(os.path.dirname(__file__), "..", ".."))
     cairn = os.environ.get("CAIRN", os.path.join(src, "cairn"))
     sys.path.insert(0, os.path.join(src, "tools", "accept"))
+    sys.dont_write_bytecode = True  # no __pycache__ in the source tree
     import particles  # the study script: its Hamiltonian matrix builder
 
     study = os.path.join(src, "examples", "study")
