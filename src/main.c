@@ -40,9 +40,19 @@ static const command commands[] = {
      "  Print the ranked generator table of the recipe, or with --hamiltonian the\n"
      "  qubit Hamiltonian after encoding and tapering.\n"},
     {"run", cmd_run, "simulated optimization run (statevector)",
-     "cairn run [--json OUT] FILE\n"
+     "cairn run [--json OUT] [--plot FILE.svg] [--no-plot] [--points] [--no-time] FILE\n"
      "  Optimize the recipe's ansatz on a noise-free statevector and compare it with\n"
-     "  the exact and classical reference energies of the active space.\n"},
+     "  the exact and classical reference energies of the active space; every point\n"
+     "  of a scan.  Prints the report on the terminal.\n"
+     "  --json OUT      also write the report as JSON (schema 1), and beside it a CSV\n"
+     "                  table (OUT.csv) and an SVG figure (OUT.svg): the scan figure,\n"
+     "                  or for one point the error against iteration\n"
+     "  --plot FILE.svg write the figure (and FILE.csv) there instead\n"
+     "  --no-plot       write no table or figure\n"
+     "  --points        for a scan, one full block per point instead of the table\n"
+     "  --no-time       leave wall-clock times out (same bytes on every run)\n"
+     "  Exit 1 when a point failed or a `keep ... checked` symmetry did not hold\n"
+     "  (the report is still written).\n"},
     {"build", cmd_build, "lower the ansatz to gates",
      "cairn build [-o OUT] [--format listing|qasm2|qasm3] [--bind REPORT [--point K]]\n"
      "            [--tree] [--short] [--no-passes] [--json] [--program] [--save-program F] FILE\n"

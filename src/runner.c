@@ -356,6 +356,25 @@ int run_point(const ir_recipe *r, int k, diag_ctx *d, const run_options *o, run_
   out->sym.spin_z = vals[IR_SYM_SPIN_Z];
   out->sym.spin_squared = vals[IR_SYM_SPIN_SQUARED];
 
+  /* Below the exact energy of the sector means the state left it: say so,
+   * with the symmetries that moved. */
+  if (out->has_error && out->error < -1e-8) {
+    util_buf why = {0};
+    for (int s = 0; s < IR_SYM_COUNT; s++) {
+      double t = sym_target(r, (ir_symmetry)s);
+      if (fabs(vals[s] - t) > 1e-6)
+        util_buf_printf(&why, "%s<%s> = %.6g (not %.6g)", why.len ? ", " : "", ir_symmetry_name((ir_symmetry)s),
+                        vals[s], t);
+    }
+    diag_report(d, DIAG_WARNING, r->pool_span,
+                "point %d: the ansatz energy is %.4g mEh below the exact energy, which is computed for %d "
+                "electrons with S_z = %g; the state has left that sector%s%s",
+                k + 1, -1e3 * out->error, r->orbitals.nalpha + r->orbitals.nbeta,
+                sym_target(r, IR_SYM_SPIN_Z), why.len ? ": " : "", why.len ? why.s : "");
+    diag_help(d, "hold the state in the sector with `keep particles penalty MU` (or spin-z / spin-squared)");
+    util_buf_free(&why);
+  }
+
   /* `keep X checked tol`: verify the final state. */
   int failed = 0;
   for (int s = 0; s < IR_SYM_COUNT; s++) {

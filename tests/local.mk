@@ -6,3 +6,6 @@ tests_unit_test_util_CFLAGS = $(UNIT_CFLAGS)
 tests_unit_test_util_LDADD = $(UNIT_LDADD)
 ## helpers shared by the reference checks of several modules (tests/ref/*.py)
 EXTRA_DIST += tests/ref/ref_common.py
+
+## acceptance studies and examples (owned by the acceptance work)
+include tests/accept.mk

@@ -58,7 +58,9 @@ int cmd_run(const cmd_env *env, int argc, char **argv) {
     fprintf(stderr, "cairn run: cannot write `%s`: %s\n", json, strerror(errno));
     status = 2;
   }
-  if (!no_plot) {
+  /* The table and figure go beside the JSON, or where --plot says; a run
+   * with neither writes no files. */
+  if (!no_plot && (json || plot)) {
     rep_paths p;
     rep_paths_derive(file, json, plot, &p);
     const char *bad = NULL;

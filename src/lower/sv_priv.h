@@ -18,9 +18,12 @@
  * of waking the team is larger than the work.  Measured with
  * tests/bench/sim_bench on 2 cores: a rotation pays from 2^16 amplitudes
  * (1.15x at 2^15, 1.85x at 2^16), so whole-register loops start at 2 * SV_PAR_MIN
- * amplitudes; H|psi> does far more work per amplitude and pays from 2^12. */
+ * amplitudes.  H|psi> pays from 2^12 on an idle machine (1.5x at 2^14), but on
+ * a loaded one a team of two stalls for a scheduler slice at every barrier
+ * (0.64 ms on one thread became 9.7 ms on two at 2^14, make bench under load),
+ * so it too waits for registers where the gain outweighs that risk. */
 #define SV_PAR_MIN ((uint64_t)1 << 15)
-#define SV_OP_PAR_MIN ((uint64_t)1 << 12)
+#define SV_OP_PAR_MIN ((uint64_t)1 << 16)
 
 /* (-1)^popcount(v) as 0 or 1. */
 static inline unsigned sv_parity(uint64_t v) { return (unsigned)__builtin_parityll(v); }

@@ -407,9 +407,10 @@ static const help_entry topics[] = {
      "  with their gradients and final angles, the optimizer's evaluations and\n"
      "  starts, gate counts, failed checks and the time.  A scan prints a table.\n"
      "  With --json OUT it writes the report as JSON (schema 1), and beside it a\n"
-     "  CSV table and an SVG figure: for a scan, energy against the varied\n"
-     "  value and |E - E(exact)| on a log axis with the chemical-accuracy line;\n"
-     "  for one point, the error against iteration.\n"
+     "  CSV table and an SVG figure (--plot FILE.svg puts them elsewhere; without\n"
+     "  --json or --plot no files are written): for a scan, energy against the\n"
+     "  varied value and |E - E(exact)| on a log axis with the chemical-accuracy\n"
+     "  line; for one point, the error against iteration.\n"
      "\n"
      "  The results are noise-free statevector simulations, and the energies\n"
      "  are exact only within the basis set and the active space.\n",
