@@ -122,6 +122,7 @@ def check_scan_svg(svg, energies, errors_mEh):
     check(lres < 1e-6, "decade ticks of the error panel lie on one straight map of log10")
     for s in ("hf", "mp2", "ccsd", "ansatz"):
         pts = path_points(curves["error-" + s].get("d"))
+        check(len(pts) == len(R), f"error-{s}: {len(R)} vertices (got {len(pts)})")
         for (px, py), r, err in zip(pts, R, errors_mEh[s]):
             check(abs(lmap(py) - math.log10(err)) <= 0.006 * abs(lb) + 1e-9,
                   f"error-{s} at r = {r}: {10 ** lmap(py):.6g} mEh reads back as {err:.6g} mEh")
