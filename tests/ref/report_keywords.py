@@ -20,17 +20,14 @@ def scanner_keywords(src):
     """Keywords as the front end defines them: the quoted words of the
     scanner's rules (grammar/recipe.l), the "`word`" aliases of the grammar's
     tokens (grammar/recipe.y) and the {"word", TOKEN} keyword table of the
-    scanner (src/front/*.c).  None when the front end is not in the tree."""
+    scanner (src/front/*.c)."""
     lex = os.path.join(src, "grammar", "recipe.l")
-    if not os.path.exists(lex):
-        return None
     words = set()
     text = open(lex).read()
     rules = text.split("%%")[1] if "%%" in text else text
     words |= {w for w in re.findall(r'"([^"\\\n]+)"', rules) if WORD.match(w)}
     yy = os.path.join(src, "grammar", "recipe.y")
-    if os.path.exists(yy):
-        words |= {w for w in re.findall(r'"`([^`"]+)`"', open(yy).read()) if WORD.match(w)}
+    words |= {w for w in re.findall(r'"`([^`"]+)`"', open(yy).read()) if WORD.match(w)}
     for c in glob.glob(os.path.join(src, "src", "front", "*.c")):
         table = re.findall(r'\{\s*"([^"]+)"\s*,\s*[A-Z][A-Z0-9_]*\s*\}', open(c).read())
         words |= {w for w in table if WORD.match(w)}
