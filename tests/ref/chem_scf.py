@@ -27,8 +27,8 @@ for mol, geoms in GEOMETRIES.items():
 import os
 from chem_common import h2o, tmpdir
 
-src = "/usr/share/psi4/basis/cc-pvtz.gbs"
-if os.path.exists(src):
+src = "/usr/share/psi4/basis/cc-pvtz.gbs"  # part of Debian's psi4 package, which the checks above ran
+if c.true("psi4's basis file %s is there" % src, os.path.exists(src)):
     txt = open(src).read()
     keep, out, take = ("H", "O"), [], False
     for ln in txt.splitlines():  # only H and O, so that psi4's basis block stays small
