@@ -8,7 +8,7 @@ integrals at R = 1.4 bohr as printed to 4 decimals in Szabo & Ostlund, Modern
 Quantum Chemistry (1989), section 3.5 (recalled from memory), must give
 E(HF) = -1.1167 and E(full CI) = -1.1373 (their values, from memory) to 1e-4.
 
-Set CAIRN_UPDATE_GOLDEN=1 to rewrite the .err files (then review the diff)."""
+Set CAIRN_GOLDEN_UPDATE=1 to rewrite the .err files (then review the diff)."""
 import glob
 import os
 import subprocess
@@ -18,7 +18,7 @@ sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 from chem_common import DRIVER, SRC, Checker, driver
 
 c = Checker()
-update = os.environ.get("CAIRN_UPDATE_GOLDEN") == "1"
+update = os.environ.get("CAIRN_GOLDEN_UPDATE") == "1"
 cases = []
 for f in sorted(glob.glob(os.path.join(SRC, "tests", "golden", "fcidump", "*.fcidump"))):
     if not f.endswith("good.fcidump"):

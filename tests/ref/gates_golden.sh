@@ -4,7 +4,7 @@
 # of tests/ref/gates_sim.py; entanglers on a qubit mean-field reference, words
 # chosen for the demo).  The listings pin the format (docs/listing.md) and the
 # lowering; their numbers are checked against numpy in gates_sim.py.
-# CAIRN_REGEN=1 rewrites the golden files instead of comparing.
+# CAIRN_GOLDEN_UPDATE=1 rewrites the golden files instead of comparing.
 set -eu
 cd "$CAIRN_SRCDIR"
 dir=tests/golden/listing
@@ -14,7 +14,7 @@ fail=0
 check() { # name program options...
   name=$1; prog=$2; shift 2
   "$CAIRN" build --program "$dir/$prog" -o - "$@" >"$tmp/$name" 2>/dev/null
-  if [ "${CAIRN_REGEN:-}" = 1 ]; then
+  if [ "${CAIRN_GOLDEN_UPDATE:-0}" = 1 ]; then
     cp "$tmp/$name" "$dir/$name"
   elif ! diff -u "$dir/$name" "$tmp/$name"; then
     echo "FAIL: $name differs from its golden listing"

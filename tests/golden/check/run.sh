@@ -1,13 +1,14 @@
 #!/bin/sh
 # run.sh — recipes that must fail the symmetry checker, each with its golden
 # diagnostics: `cairn check NAME.cairn` must exit 1 and print exactly
-# NAME.err on stderr.  With --update, rewrite the .err files instead (review
-# the diff before committing).  Needs CAIRN (the built binary) and
+# NAME.err on stderr.  With CAIRN_GOLDEN_UPDATE=1 (or --update), rewrite the
+# .err files instead (review the diff before committing).  Needs CAIRN (the built binary) and
 # CAIRN_SRCDIR in the environment, as `make check` sets them.
 set -u
 dir="${CAIRN_SRCDIR:-.}/tests/golden/check"
 update=0
 [ "${1:-}" = "--update" ] && update=1
+[ "${CAIRN_GOLDEN_UPDATE:-0}" = 1 ] && update=1
 tmp=$(mktemp -d)
 trap 'rm -rf "$tmp"' EXIT
 cd "$dir" || exit 99
