@@ -152,8 +152,8 @@ static void show_source(diag_ctx *d, diag_span sp, int kind) {
   fprintf(d->out, "%s\n", col(d, C_RESET));
 }
 
-static void emit(diag_ctx *d, const char *word, int kind, diag_span where, const char *fmt,
-                 va_list ap) {
+static void emit(diag_ctx *d, const char *word, int kind, diag_span where, const char *suffix,
+                 const char *fmt, va_list ap) {
   int located = where.file >= 0 && (size_t)where.file < d->nfiles;
   if (located) {
     int line, c;
@@ -163,6 +163,7 @@ static void emit(diag_ctx *d, const char *word, int kind, diag_span where, const
   }
   fprintf(d->out, "%s%s:%s ", col(d, kind), word, col(d, C_RESET));
   vfprintf(d->out, fmt, ap);
+  fputs(suffix, d->out);
   fputc('\n', d->out);
   if (located && d->files[where.file].len > 0) show_source(d, where, kind);
 }
@@ -177,8 +178,9 @@ void diag_vreport(diag_ctx *d, diag_level level, diag_span where, const char *fm
   }
   if (as_error) d->errors++;
   else d->warnings++;
-  emit(d, level == DIAG_ERROR ? "error" : "warning", level == DIAG_ERROR ? C_ERR : C_WARN, where,
-       fmt, ap);
+  /* a promoted warning reads as an error, marked so the user knows why */
+  emit(d, as_error ? "error" : "warning", as_error ? C_ERR : C_WARN, where,
+       as_error && level != DIAG_ERROR ? " [--werror]" : "", fmt, ap);
 }
 
 void diag_report(diag_ctx *d, diag_level level, diag_span where, const char *fmt, ...) {
@@ -191,14 +193,14 @@ void diag_report(diag_ctx *d, diag_level level, diag_span where, const char *fmt
 void diag_note(diag_ctx *d, diag_span where, const char *fmt, ...) {
   va_list ap;
   va_start(ap, fmt);
-  emit(d, "note", C_NOTE, where, fmt, ap);
+  emit(d, "note", C_NOTE, where, "", fmt, ap);
   va_end(ap);
 }
 
 void diag_help(diag_ctx *d, const char *fmt, ...) {
   va_list ap;
   va_start(ap, fmt);
-  emit(d, "help", C_HELP, DIAG_NOWHERE, fmt, ap);
+  emit(d, "help", C_HELP, DIAG_NOWHERE, "", fmt, ap);
   va_end(ap);
 }
 

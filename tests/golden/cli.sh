@@ -64,6 +64,9 @@ lacks "$tmp/err" "$(printf '\033[')"
 expect 0 "$CAIRN" check "$G/warning-scan-unused.cairn"
 has "$tmp/err" "warning:"
 expect 1 "$CAIRN" --werror check "$G/warning-scan-unused.cairn"
+has "$tmp/err" "error:"
+has "$tmp/err" "[--werror]"
+lacks "$tmp/err" "warning:"
 
 # fmt rewrites in place, leaves formatted and broken files alone
 printf 'cairn   1\nlet  x=1.0\n' >"$tmp/a.cairn"
