@@ -152,6 +152,8 @@ static int ycount(uint64_t x, uint64_t z) { return __builtin_popcountll(x & z); 
  * when p < 6 both rows lie in one block. */
 #define BLK 64
 
+uint64_t sv_stream_min = (uint64_t)1 << 22; /* 64 MiB vectors, twice the L3 of the 2-core machine: below it the copy costs (X5 X21 at 20 qubits: 88 GB/s with it, 162 without), at 24 qubits it gains 2x */
+
 static void sign_row(uint64_t z, double *row) {
   for (unsigned l = 0; l < BLK; l++) row[l] = sv_parity(l & z) ? -1.0 : 1.0;
 }
@@ -220,7 +222,7 @@ static inline __attribute__((always_inline)) void pair_step(pair_op op, int fim,
 static inline __attribute__((always_inline)) void pairs_chunk(pair_op op, int fim, const kparams *k, const ktab *t,
                                                               sv_v2 *restrict a, sv_v2 *restrict b, uint64_t q0,
                                                               uint64_t q1, int p, uint64_t x, uint64_t z,
-                                                              const unsigned char *lows, sv_v2 *acc) {
+                                                              const unsigned char *lows, int stream, sv_v2 *acc) {
   uint64_t xl = x & (BLK - 1), xh = x & ~(uint64_t)(BLK - 1);
   for (uint64_t q = q0; q < q1; q++) {
     uint64_t base = (p >= 6 ? sv_insert0(q, p - 6) : q) * BLK, jb = base ^ xh;
@@ -228,9 +230,19 @@ static inline __attribute__((always_inline)) void pairs_chunk(pair_op op, int fi
     sv_v2 *ab = a ? a + base : NULL, *aj = a ? a + jb : NULL, *bb = b + base, *bj = b + jb;
     if (p >= 6 && xl == 0) { /* partner rows in the same order */
       for (unsigned l = 0; l < BLK; l++) pair_step(op, fim, k, t, s, l, ab + l, aj + l, bb + l, bj + l, acc);
-    } else if (p >= 6) {
+    } else if (p >= 6 && (xl < 32 || !stream)) {
       for (unsigned l = 0; l < BLK; l++)
         pair_step(op, fim, k, t, s, l, ab + l, aj + (l ^ xl), bb + l, bj + (l ^ xl), acc);
+    } else if (p >= 6) { /* x has bit 5: the partner block through an L1 copy, as in pairs_chunk_run */
+      sv_v2 ta[BLK], tb[BLK];
+      for (unsigned l = 0; l < BLK; l++) tb[l ^ xl] = bj[l];
+      if (a)
+        for (unsigned l = 0; l < BLK; l++) ta[l ^ xl] = aj[l];
+      for (unsigned l = 0; l < BLK; l++) pair_step(op, fim, k, t, s, l, ab + l, ta + l, bb + l, tb + l, acc);
+      if (op != OP_INNER)
+        for (unsigned l = 0; l < BLK; l++) bj[l] = tb[l ^ xl];
+      if (op == OP_INNER_ROTATE)
+        for (unsigned l = 0; l < BLK; l++) aj[l] = ta[l ^ xl];
     } else {
       for (unsigned h = 0; h < BLK / 2; h++) {
         unsigned l = lows[h];
@@ -240,7 +252,45 @@ static inline __attribute__((always_inline)) void pairs_chunk(pair_op op, int fi
   }
 }
 
+/* Runs of RUN rows (4 KiB) for vectors that stream from memory, when x has
+ * bit 6 or 7 and p >= 8 (bit 5 alone: one block, in pairs_chunk): the partner of row o of a run is row o ^ d of the
+ * partner run, d = x & (RUN - 1).  Taken in the plain order, that partner
+ * stream jumps back and forth by 512 B to 2 KiB, and the pass ran at half
+ * the speed of the others (24 qubits: X0 Y5 Z9 X23 at 43 % of the copy
+ * bandwidth and X6 X23 at 50 %, X0 Y1 Z9 X23 at 120 %).  Here the partner run is read and
+ * written in address order through an L1 copy; the arithmetic is the same.
+ * In cache the copy costs more than it saves, hence sv_stream_min. */
+#define RUN 256
+static inline __attribute__((always_inline)) void pairs_chunk_run(pair_op op, int fim, const kparams *k,
+                                                                  const ktab *t, sv_v2 *restrict a,
+                                                                  sv_v2 *restrict b, uint64_t q0, uint64_t q1, int p,
+                                                                  uint64_t x, uint64_t z, sv_v2 *acc) {
+  unsigned d = (unsigned)(x & (RUN - 1));
+  uint64_t xh = x & ~(uint64_t)(RUN - 1);
+  sv_v2 ta[RUN], tb[RUN];
+  for (uint64_t q = q0; q < q1; q += RUN / BLK) {
+    uint64_t base = sv_insert0(q, p - 6) * BLK, jb = base ^ xh; /* RUN / BLK whole blocks: p - 6 >= 2 */
+    sv_v2 *ab = a ? a + base : NULL, *aj = a ? a + jb : NULL, *bb = b + base, *bj = b + jb;
+    for (unsigned o = 0; o < RUN; o++) tb[o ^ d] = bj[o];
+    if (a)
+      for (unsigned o = 0; o < RUN; o++) ta[o ^ d] = aj[o];
+    for (unsigned u = 0; u < RUN / BLK; u++) {
+      int s = (int)sv_parity((base + u * BLK) & z);
+      for (unsigned l = 0; l < BLK; l++) {
+        unsigned o = u * BLK + l;
+        pair_step(op, fim, k, t, s, l, ab + o, ta + o, bb + o, tb + o, acc);
+      }
+    }
+    if (op != OP_INNER)
+      for (unsigned o = 0; o < RUN; o++) bj[o] = tb[o ^ d];
+    if (op == OP_INNER_ROTATE)
+      for (unsigned o = 0; o < RUN; o++) aj[o] = ta[o ^ d];
+  }
+}
+
 #define PAIRS_CHUNK(OP, ...) (fim ? pairs_chunk(OP, 1, k, &t, __VA_ARGS__) : pairs_chunk(OP, 0, k, &t, __VA_ARGS__))
+#define PAIRS_RUN(OP, ...) \
+  (fim ? pairs_chunk_run(OP, 1, k, &t, __VA_ARGS__) : pairs_chunk_run(OP, 0, k, &t, __VA_ARGS__))
 
 
 /* Every pair of the register, in chunks of blocks; returns the sum of the
@@ -266,17 +316,29 @@ static double complex pairs_pass(pair_op op, int fim, const kparams *k, sv_v2 *r
   uint64_t nblk = dim / BLK;
   /* blocks visited: all of them (p < 6) or those with bit p clear */
   uint64_t nvis = p >= 6 ? nblk / 2 : nblk, cb = SV_CHUNK / BLK, nch = (nvis + cb - 1) / cb;
+  /* vectors from memory, not from cache: 4 KiB runs (chunk bounds and nvis are multiples of RUN / BLK) */
+  int stream = dim >= sv_stream_min;
+  int run = stream && p >= 8 && (x & 0xC0) && cb % (RUN / BLK) == 0 && nvis % (RUN / BLK) == 0;
   parts ps;
   double *part = parts_get(&ps, inner ? nch : 1);
 #pragma omp parallel for schedule(static) if (dim >= 2 * SV_PAR_MIN)
   for (uint64_t ch = 0; ch < nch; ch++) {
     sv_v2 acc[2] = {{0, 0}, {0, 0}};
     uint64_t q0 = ch * cb, q1 = (ch + 1) * cb < nvis ? (ch + 1) * cb : nvis;
-    switch (op) {
-    case OP_ROTATE: PAIRS_CHUNK(OP_ROTATE, a, b, q0, q1, p, x, z, lows, acc); break;
-    case OP_WORD: PAIRS_CHUNK(OP_WORD, a, b, q0, q1, p, x, z, lows, acc); break;
-    case OP_INNER: PAIRS_CHUNK(OP_INNER, a, b, q0, q1, p, x, z, lows, acc); break;
-    case OP_INNER_ROTATE: PAIRS_CHUNK(OP_INNER_ROTATE, a, b, q0, q1, p, x, z, lows, acc); break;
+    if (run) {
+      switch (op) {
+      case OP_ROTATE: PAIRS_RUN(OP_ROTATE, a, b, q0, q1, p, x, z, acc); break;
+      case OP_WORD: PAIRS_RUN(OP_WORD, a, b, q0, q1, p, x, z, acc); break;
+      case OP_INNER: PAIRS_RUN(OP_INNER, a, b, q0, q1, p, x, z, acc); break;
+      case OP_INNER_ROTATE: PAIRS_RUN(OP_INNER_ROTATE, a, b, q0, q1, p, x, z, acc); break;
+      }
+    } else {
+      switch (op) {
+      case OP_ROTATE: PAIRS_CHUNK(OP_ROTATE, a, b, q0, q1, p, x, z, lows, stream, acc); break;
+      case OP_WORD: PAIRS_CHUNK(OP_WORD, a, b, q0, q1, p, x, z, lows, stream, acc); break;
+      case OP_INNER: PAIRS_CHUNK(OP_INNER, a, b, q0, q1, p, x, z, lows, stream, acc); break;
+      case OP_INNER_ROTATE: PAIRS_CHUNK(OP_INNER_ROTATE, a, b, q0, q1, p, x, z, lows, stream, acc); break;
+      }
     }
     if (inner) {
       part[2 * ch] = acc[0][0] + acc[0][1];

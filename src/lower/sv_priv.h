@@ -24,6 +24,10 @@
  * so it too waits for registers where the gain outweighs that risk. */
 #define SV_PAR_MIN ((uint64_t)1 << 15)
 #define SV_OP_PAR_MIN ((uint64_t)1 << 16)
+/* From this many amplitudes on, rotation passes assume the vectors stream
+ * from memory and take the access orders that suit that (sv.c).  A variable
+ * so the unit tests can send small registers down those paths too. */
+extern uint64_t sv_stream_min;
 
 /* (-1)^popcount(v) as 0 or 1. */
 static inline unsigned sv_parity(uint64_t v) { return (unsigned)__builtin_parityll(v); }

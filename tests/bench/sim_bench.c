@@ -77,6 +77,7 @@ static int bench_rotation(int n, int reps) {
       {"Y0 X1 X2 X3", 0xfull, 0x1ull},
       {"Z3 Z17", 0, (1ull << 3) | (1ull << 17)},
       {"Y10 Y11 Y12 Y13", 0xfull << 10, 0xfull << 10},
+      {"X6 X23", (1ull << 6) | (1ull << 23), 0}, /* partner blocks 1 KiB apart in the page (sv.c's runs) */
   };
   printf(", \"rotations\": [");
   for (size_t w = 0; w < sizeof words / sizeof *words; w++) {

@@ -14,6 +14,8 @@
 #include <string.h>
 #include <cmocka.h>
 
+#include "lower/sv_priv.h" /* sv_stream_min */
+
 #include <complex.h>
 #include <math.h>
 #ifdef _OPENMP
@@ -88,18 +90,24 @@ static double max_diff(uint64_t dim, const double complex *a, const double compl
 }
 
 /* sv_rotate and sv_apply_word equal the dense matrices for random words on
- * 1..7 qubits (diagonal words, Y-heavy words and the identity included). */
+ * 1..9 qubits (diagonal words, Y-heavy words and the identity included).
+ * Trials 3 and 4 force words with letters on qubit 5, or 6 and 7, and on a
+ * qubit above them: the words that take sv.c's partner copies when vectors
+ * stream from memory (test_streaming_orders sends these small registers
+ * down that path). */
 static void test_rotation_matches_dense(void **state) {
   (void)state;
   util_rng r;
   util_rng_seed(&r, 11);
-  for (int n = 1; n <= 7; n++)
+  for (int n = 1; n <= 9; n++)
     for (int trial = 0; trial < 12; trial++) {
-      char letters[8];
+      char letters[10];
       random_letters(&r, n, letters);
       if (trial == 0) memset(letters, 'I', (size_t)n);
       if (trial == 1) memset(letters, 'Y', (size_t)n);
       if (trial == 2) memset(letters, 'Z', (size_t)n);
+      if (trial == 3 && n >= 7) letters[5] = 'X', letters[n - 1] = 'Y';
+      if (trial == 4 && n >= 9) letters[6] = 'Y', letters[7] = 'X', letters[n - 1] = 'X';
       uint64_t x, z;
       word_of_letters(n, letters, &x, &z);
       sv_state s;
@@ -124,15 +132,18 @@ static void test_rotation_matches_dense(void **state) {
     }
 }
 
-/* <a|P|b> and the fused backward step equal the dense computation. */
+/* <a|P|b> and the fused backward step equal the dense computation (1..9
+ * qubits; trials 3 and 4 as in test_rotation_matches_dense). */
 static void test_word_inner(void **state) {
   (void)state;
   util_rng r;
   util_rng_seed(&r, 12);
-  for (int n = 1; n <= 6; n++)
+  for (int n = 1; n <= 9; n++)
     for (int trial = 0; trial < 10; trial++) {
-      char letters[8];
+      char letters[10];
       random_letters(&r, n, letters);
+      if (trial == 3 && n >= 7) letters[5] = 'Y', letters[n - 1] = 'X';
+      if (trial == 4 && n >= 9) letters[7] = 'X', letters[n - 1] = 'Y';
       uint64_t x, z;
       word_of_letters(n, letters, &x, &z);
       sv_state a, b;
@@ -165,6 +176,17 @@ static void test_word_inner(void **state) {
       sv_state_free(&a2);
       sv_state_free(&b2);
     }
+}
+
+/* The access orders for registers that stream from memory (sv.c) give the
+ * same results: both tests above again with every register counted as
+ * streaming. */
+static void test_streaming_orders(void **state) {
+  uint64_t keep = sv_stream_min;
+  sv_stream_min = 0;
+  test_rotation_matches_dense(state);
+  test_word_inner(state);
+  sv_stream_min = keep;
 }
 
 /* op psi and <psi|op|psi> for random sums with complex coefficients (not
@@ -484,7 +506,7 @@ static void test_fused_random(void **state) {
 
 int main(void) {
   const struct CMUnitTest tests[] = {
-      cmocka_unit_test(test_rotation_matches_dense), cmocka_unit_test(test_word_inner),
+      cmocka_unit_test(test_rotation_matches_dense), cmocka_unit_test(test_word_inner), cmocka_unit_test(test_streaming_orders),
       cmocka_unit_test(test_op_matches_dense),       cmocka_unit_test(test_op_hermitian_real),
       cmocka_unit_test(test_memory_refusal),         cmocka_unit_test(test_thread_independence),
       cmocka_unit_test(test_fused_excitations),      cmocka_unit_test(test_fused_random),
