@@ -152,7 +152,7 @@ static int ycount(uint64_t x, uint64_t z) { return __builtin_popcountll(x & z); 
  * when p < 6 both rows lie in one block. */
 #define BLK 64
 
-uint64_t sv_stream_min = (uint64_t)1 << 22; /* 64 MiB vectors, twice the L3 of the 2-core machine: below it the copy costs (X5 X21 at 20 qubits: 88 GB/s with it, 162 without), at 24 qubits it gains 2x */
+uint64_t sv_stream_min = (uint64_t)1 << 22; /* 64 MiB vectors, twice the L3 of the 2-core machine: below it the copy costs (X5 X19 at 20 qubits: 88 GB/s with it, 162 without), at 24 qubits it gains 2x */
 
 static void sign_row(uint64_t z, double *row) {
   for (unsigned l = 0; l < BLK; l++) row[l] = sv_parity(l & z) ? -1.0 : 1.0;
