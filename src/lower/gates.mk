@@ -8,8 +8,8 @@ libcairn_a_SOURCES += include/cairn/gates.h src/lower/gate_int.h src/lower/emit_
 check_PROGRAMS += tests/ref/gates_driver
 tests_ref_gates_driver_SOURCES = tests/ref/gates_driver.c
 tests_ref_gates_driver_LDADD = $(CAIRN_LIBS)
-TESTS += tests/ref/gates_sim.py tests/ref/gates_recipes.py tests/ref/gates_examples.py
-EXTRA_DIST += tests/ref/gates_sim.py tests/ref/gates_recipes.py tests/ref/gates_examples.py
+TESTS += tests/ref/gates_sim.py tests/ref/gates_recipes.py tests/ref/gates_examples.py tests/ref/gates_sparse.py
+EXTRA_DIST += tests/ref/gates_sim.py tests/ref/gates_recipes.py tests/ref/gates_examples.py tests/ref/gates_sparse.py
 
 check_PROGRAMS += tests/unit/test_gates
 UNIT_TESTS += tests/unit/test_gates
