@@ -8,6 +8,29 @@
 #include <stdlib.h>
 #include <string.h>
 
+/* The span a register-size error points at: where the size comes from. */
+static diag_span size_span(const ir_recipe *r) {
+  const diag_span c[] = {r->orbitals.active_span, r->integrals_span, r->basis_span, r->encoding_span};
+  for (size_t k = 0; k < sizeof c / sizeof c[0]; k++)
+    if (c[k].file >= 0) return c[k];
+  return r->encoding_span;
+}
+
+/* S^2 is built as S_- S_+ (qubit_spin_squared): (2 norb)^2 products of
+ * words held in an accumulator, then the merged sum; at a few thousand
+ * qubits that alone outgrows the machine, so it is refused first. */
+static int operators_fit(const ir_recipe *r, int nmodes, diag_ctx *d) {
+  double norb = nmodes / 2, terms = 4 * norb * norb, word = 16.0 * pauli_nwords(nmodes) + 16;
+  double need = 3 * terms * word, avail = (double)util_mem_available();
+  if (avail == 0 || need <= avail) return 0;
+  diag_report(d, DIAG_ERROR, size_span(r),
+              "a register of %d qubits is too large here: its spin operator S^2 alone needs about %.1f GiB "
+              "(%.0f Pauli words); %.1f GiB are available",
+              nmodes, need / (1 << 30), terms, avail / (1 << 30));
+  diag_help(d, "make the active space smaller (`orbitals { active N electrons in M orbitals }`)");
+  return -1;
+}
+
 int pipe_point_from_space(const ir_recipe *r, const chem_space *cs, diag_ctx *d, pipe_point *out) {
   if (out->cs != &out->space) memset(out, 0, sizeof *out);
   out->cs = cs;
@@ -16,6 +39,7 @@ int pipe_point_from_space(const ir_recipe *r, const chem_space *cs, diag_ctx *d,
   out->nbeta = cs ? cs->nbeta : r->orbitals.nbeta;
   int nmodes = 2 * out->norb;
   int nw = pauli_nwords(nmodes);
+  if (operators_fit(r, nmodes, d) != 0) return -1;
   out->enc = qubit_encoder_new(r->encoding, nmodes);
   pauli_sum_init(&out->ham_full, nmodes);
   if (cs) {

@@ -106,6 +106,7 @@ typedef struct ans_build {
 /* One pool rule: expands rule b->rule into generators through ans_add_*. */
 typedef void (*ans_rule_fn)(ans_build *b, const ir_rule *rule);
 ans_rule_fn ans_rule_lookup(ir_rule_kind k);
+uint64_t ans_rule_estimate(const ans_build *b, const ir_rule *rule, int *words);
 void ans_rule_entanglers(ans_build *b, const ir_rule *rule);
 
 /* Add a generator made on the full register (G is consumed): canonicalize,

@@ -275,6 +275,28 @@ void ans_pool_screen(ans_pool *pool, const pauli_sum *H, const ans_reference *re
   ans_screen_free(&s);
 }
 
+/* Refuse a rule whose generators (with those of the rules before it) would
+ * not fit in memory, before making any: each takes its words (two masks and
+ * a coefficient), its record and its slots in the duplicate table. */
+static int pool_fits(ans_build *b, const ir_rule *rule, uint64_t *planned) {
+  int words = 0;
+  uint64_t count = ans_rule_estimate(b, rule, &words);
+  if (count == 0) return 1;
+  uint64_t per = (uint64_t)words * (2 * (uint64_t)pauli_nwords(b->p->nqubits) * 8 + 16) + sizeof(ans_gen) + 64,
+           need = count > UINT64_MAX / per ? UINT64_MAX : count * per, avail = util_mem_available();
+  if (avail == 0 || *planned + need <= avail) {
+    *planned += need;
+    return 1;
+  }
+  b->tally[b->rule].had_error = 1;
+  diag_report(b->d, DIAG_ERROR, rule->span,
+              "this rule makes up to %llu generators on %d qubits, which need about %.1f GiB; %.1f GiB are available",
+              (unsigned long long)count, b->p->nqubits, (double)need / (1 << 30), (double)avail / (1 << 30));
+  diag_help(b->d, "make the active space smaller (`orbitals { active N electrons in M orbitals }`), or use a "
+                  "rule that makes fewer generators");
+  return 0;
+}
+
 int ans_plan_build(ans_plan *pl, const ir_recipe *r, const ans_problem *p, diag_ctx *d) {
   memset(pl, 0, sizeof *pl);
   int errors0 = diag_errors(d);
@@ -307,13 +329,14 @@ int ans_plan_build(ans_plan *pl, const ir_recipe *r, const ans_problem *p, diag_
   for (int s = 0; s < IR_SYM_COUNT; s++) b.type_all[s] = r->keep[s].policy == IR_KEEP_EXACTLY;
 
   ans_type_reference(&b);
+  uint64_t planned = 0;
   for (int i = 0; i < r->nrules; i++) {
     b.rule = i;
     int col = 0;
     b.rule_line = 0;
     if (r->rules[i].span.file >= 0) diag_line_col(d, r->rules[i].span.file, r->rules[i].span.start, &b.rule_line, &col);
     ans_rule_fn fn = ans_rule_lookup(r->rules[i].kind);
-    if (fn) fn(&b, &r->rules[i]);
+    if (fn && pool_fits(&b, &r->rules[i], &planned)) fn(&b, &r->rules[i]);
     pl->pool.rule_made[i] = b.tally[i].made;
   }
   ans_rule_messages(&b);
@@ -322,7 +345,7 @@ int ans_plan_build(ans_plan *pl, const ir_recipe *r, const ans_problem *p, diag_
     screen_pool(&pl->pool, b.scr, 0);
     pl->screened = 1;
   }
-  ans_select(pl, r, d);
+  ans_select(pl, r, diag_errors(d) > errors0 ? NULL : d); /* no empty-pool warning after a refused rule */
 
   if (b.scr) ans_screen_free(&scr);
   for (int i = 0; i < r->nrules; i++) {

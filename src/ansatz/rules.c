@@ -258,6 +258,56 @@ static void rule_excite(ans_build *b, const ir_rule *rule) {
   add_excitation(b, ANS_EXCITE, k, rule->from, rule->to);
 }
 
+/* How many generators a rule makes at most, and Pauli words each, in closed
+ * form from the reference's occupations per spin (the enumerations above,
+ * counted): so a pool too large for the machine is refused before it is
+ * built.  0 for the rules whose size is bounded otherwise (entanglers: by the
+ * Hamiltonian, which is already in memory; explicit words and excitations). */
+uint64_t ans_rule_estimate(const ans_build *b, const ir_rule *rule, int *words) {
+  int kind = rule->kind;
+  if (kind != IR_RULE_SINGLES && kind != IR_RULE_DOUBLES && kind != IR_RULE_QUBIT_SINGLES &&
+      kind != IR_RULE_QUBIT_DOUBLES)
+    return 0;
+  int n = b->p->nmodes;
+  unsigned char *occ = ref_occupations(b);
+  double o[2] = {0, 0}, v[2] = {0, 0}, m[2] = {0, 0}, dbl = 0, empty = 0, alpha = 0, beta = 0;
+  for (int q = 0; q < n; q++) {
+    m[q & 1]++;
+    if (occ[q]) o[q & 1]++;
+    else v[q & 1]++;
+  }
+  for (int i = 0; 2 * i + 1 < n; i++) { /* spatial orbitals: doubly, singly (alpha or beta), not occupied */
+    dbl += occ[2 * i] && occ[2 * i + 1];
+    empty += !occ[2 * i] && !occ[2 * i + 1];
+    alpha += occ[2 * i] && !occ[2 * i + 1];
+    beta += !occ[2 * i] && occ[2 * i + 1];
+  }
+  free(occ);
+  int gen = (rule->options & IR_OPT_GENERALIZED) != 0;
+  double norb = n / 2, c;
+#define C2(x) ((x) * ((x) - 1) / 2)
+  if (kind == IR_RULE_SINGLES || kind == IR_RULE_QUBIT_SINGLES) {
+    *words = 2;
+    if (kind == IR_RULE_SINGLES && (rule->options & IR_OPT_SPIN_ADAPTED)) {
+      *words = 4;
+      /* spatial i -> a with an alpha move or a beta move open: both when i is doubly occupied and a empty */
+      c = gen ? C2(norb) : (dbl + alpha) * (beta + empty) + (dbl + beta) * (alpha + empty) - dbl * empty;
+    } else {
+      c = gen ? C2(m[0]) + C2(m[1]) : o[0] * v[0] + o[1] * v[1];
+    }
+  } else {
+    *words = 8;
+    if (rule->options & IR_OPT_PAIRED)
+      c = gen ? C2(norb) : dbl * empty;
+    else if (gen)
+      c = C2(m[0]) * C2(m[0] - 2) / 2 + C2(m[1]) * C2(m[1] - 2) / 2 + m[0] * m[1] * (m[0] - 1) * (m[1] - 1) / 2;
+    else
+      c = C2(o[0]) * C2(v[0]) + C2(o[1]) * C2(v[1]) + o[0] * o[1] * v[0] * v[1];
+  }
+#undef C2
+  return c > 1e18 ? (uint64_t)1e18 : (uint64_t)c;
+}
+
 /* ORDER ir_rule_kind */
 static const struct {
   ir_rule_kind kind;

@@ -4,7 +4,12 @@
 #    figures (needed, available), quickly, exit 1, and the report still says
 #    what was known (the HF energy);
 #  - a failed `checked` symmetry makes run exit 1 with a message at the keep
-#    line, and the JSON report is still written and records the failed check.
+#    line, and the JSON report is still written and records the failed check;
+#  - `cairn check` refuses, with the figures and at the right line, a register
+#    whose spin operator S^2 would not fit (30000 orbitals: about 150 TiB) and
+#    a pool rule whose generators would not fit (generalized doubles of 200
+#    orbitals: about 1.3 TiB), instead of being killed for lack of memory.
+#    The FCIDUMP files are written here (header only: `check` reads no more).
 set -u
 dir=${CAIRN_SRCDIR:-.}/tests/integration
 tmp=$(mktemp -d "${TMPDIR:-/tmp}/cairn-int-XXXXXX")
@@ -41,5 +46,27 @@ if not ok:
     print("FAIL: broken number: report lacks the failed check:", p.get("checks"))
 sys.exit(0 if ok else 1)
 PY
+fcidump() { # norb nelec file
+  "$PYTHON" -c "import sys; n = int(sys.argv[1]); print('&FCI NORB=%d, NELEC=%s, MS2=0, ORBSYM=%s ISYM=1, &END' % (n, sys.argv[2], '1,' * n)); print('  1.0 1 1 1 1'); print('  0.5 0 0 0 0')" "$1" "$2" >"$3"
+}
+recipe() { # fcidump rule file
+  printf 'cairn 1\nintegrals "%s"\nencoding jordan-wigner\nreference hartree-fock\npool {\n  %s\n}\nchoose all\n' "$1" "$2" >"$3"
+}
+fcidump 30000 2 "$tmp/wide.fcidump"
+recipe wide.fcidump doubles "$tmp/wide.cairn"
+"$CAIRN" check --color=never "$tmp/wide.cairn" >"$tmp/out" 2>"$tmp/err"
+rc=$?
+[ $rc = 1 ] || say "wide register: exit $rc, expected 1"
+grep -q "wide.cairn:2:1: error: a register of 60000 qubits is too large here: its spin operator S^2 alone needs about .* GiB (.* Pauli words); .* GiB are available" "$tmp/err" ||
+  { say "wide register: no refusal with figures at the integrals line"; cat "$tmp/err"; }
+fcidump 200 100 "$tmp/pool.fcidump"
+recipe pool.fcidump "doubles generalized" "$tmp/pool.cairn"
+"$CAIRN" check --color=never "$tmp/pool.cairn" >"$tmp/out" 2>"$tmp/err"
+rc=$?
+[ $rc = 1 ] || say "large pool: exit $rc, expected 1"
+grep -q "pool.cairn:6:3: error: this rule makes up to [0-9]* generators on 400 qubits, which need about .* GiB; .* GiB are available" "$tmp/err" ||
+  { say "large pool: no refusal with figures at the rule"; cat "$tmp/err"; }
+grep -q "warning: the pool has no generators" "$tmp/err" && say "large pool: an empty-pool warning follows the refusal"
+
 [ $fail = 0 ] && echo "run-level behaviour: ok"
 exit $fail

@@ -29,6 +29,7 @@
 
 #include "cairn/pool.h"
 #include "cairn/util.h"
+#include "ansatz/ans_priv.h" /* ans_rule_estimate */
 #include "../support/testdata.h"
 #include "../support/testrecipe.h"
 #include "../support/testref.h"
@@ -224,6 +225,13 @@ static void test_counts(void **state) {
         fix_init(&f, &lines[i], 1, ENCODINGS[e], IR_REF_HARTREE_FOCK);
         assert_int_equal(fix_build(&f, &lines[i], norb, o, o, 1, 0), 0);
         assert_int_equal(f.pl.pool.len, expect[i]);
+        /* the memory check's closed forms count the same generators */
+        ans_build eb;
+        memset(&eb, 0, sizeof eb);
+        eb.p = &f.s.prob;
+        int ew = 0;
+        assert_int_equal(ans_rule_estimate(&eb, &f.rules[0], &ew), expect[i]);
+        assert_int_equal(ew, words[i]);
         for (size_t k = 0; k < f.pl.pool.len; k++) {
           const ans_gen *g = &f.pl.pool.gen[k];
           assert_int_equal(g->len, words[i]);
@@ -236,6 +244,29 @@ static void test_counts(void **state) {
         }
         fix_free(&f);
       }
+    }
+}
+
+/* Open shells: the memory check's closed forms (ans_rule_estimate) count
+ * exactly the generators each rule makes, with different alpha and beta
+ * occupations (the enumeration in rules.c is the reference). */
+static void test_estimates_open_shell(void **state) {
+  (void)state;
+  static const char *const lines[] = {"singles", "doubles", "singles spin-adapted", "doubles paired",
+                                      "singles generalized", "doubles generalized", "doubles paired generalized",
+                                      "qubit singles", "qubit doubles"};
+  const int cases[][3] = {{5, 3, 1}, {6, 4, 2}, {4, 2, 1}, {7, 3, 0}};
+  for (size_t c = 0; c < sizeof cases / sizeof cases[0]; c++)
+    for (int i = 0; i < 9; i++) {
+      fix f;
+      fix_init(&f, &lines[i], 1, IR_ENC_JORDAN_WIGNER, IR_REF_HARTREE_FOCK);
+      assert_int_equal(fix_build(&f, &lines[i], cases[c][0], cases[c][1], cases[c][2], 1, 0), 0);
+      ans_build eb;
+      memset(&eb, 0, sizeof eb);
+      eb.p = &f.s.prob;
+      int ew = 0;
+      assert_int_equal(ans_rule_estimate(&eb, &f.rules[0], &ew), f.pl.pool.len);
+      fix_free(&f);
     }
 }
 
@@ -834,7 +865,8 @@ static void test_grow(void **state) {
 
 int main(void) {
   const struct CMUnitTest tests[] = {
-      cmocka_unit_test(test_counts),          cmocka_unit_test(test_gradients),
+      cmocka_unit_test(test_counts),          cmocka_unit_test(test_estimates_open_shell),
+      cmocka_unit_test(test_gradients),
       cmocka_unit_test(test_product_state_gradients), cmocka_unit_test(test_entangler_choice),
       cmocka_unit_test(test_entangler_tilted),
       cmocka_unit_test(test_mean_field),      cmocka_unit_test(test_signatures),
