@@ -14,14 +14,6 @@
 #include <stdlib.h>
 #include <string.h>
 
-void chem_space_free(chem_space *s) {
-  if (!s) return;
-  free(s->h1);
-  free(s->h2);
-  free(s->orbital_energies);
-  memset(s, 0, sizeof *s);
-}
-
 /* Load the recipe's basis set (shipped name or file). */
 static int load_recipe_basis(const ir_recipe *r, diag_ctx *d, basis_set *b) {
   if (!r->basis_file && !r->basis_name) {

@@ -63,3 +63,18 @@ EXTRA_DIST += tests/bench/chem_bench.py
 BENCH_TARGETS += bench-chem
 bench-chem: tests/bench/chem_bench$(EXEEXT)
 	$(PYTHON) $(srcdir)/tests/bench/chem_bench.py $(abs_top_builddir)
+
+## libFuzzer target for the FCIDUMP and basis-file readers (`make fuzz`, as
+## for the recipe parser in src/front/local.mk; .ci/run runs it for 45
+## seconds).  Built from the readers' own sources and the few they call.
+CHEM_FUZZ_FILES = $(srcdir)/tests/fuzz/fuzz_inputs.c $(srcdir)/src/chem/fcidump.c $(srcdir)/src/chem/basis.c \
+	$(srcdir)/src/chem/basis_data.c $(srcdir)/src/chem/chem_util.c $(srcdir)/src/chem/element.c \
+	$(srcdir)/src/chem/space.c $(srcdir)/src/util.c $(srcdir)/src/diag.c
+EXTRA_DIST += tests/fuzz/fuzz_inputs.c
+CLEANFILES += tests/fuzz/fuzz_inputs
+fuzz: tests/fuzz/fuzz_inputs
+tests/fuzz/fuzz_inputs: $(CHEM_FUZZ_FILES)
+	@case "$(CC)" in *clang*) ;; *) echo "make fuzz: needs libFuzzer: configure with CC=clang" >&2; exit 2;; esac
+	@$(MKDIR_P) tests/fuzz
+	$(AM_V_CCLD)$(CC) $(DEFS) -I$(top_builddir) $(AM_CPPFLAGS) $(CPPFLAGS) -std=gnu11 $(CAIRN_CFLAGS) $(CFLAGS) -fsanitize=fuzzer \
+	  -o $@ $(CHEM_FUZZ_FILES) -lm

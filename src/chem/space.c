@@ -1,5 +1,5 @@
-/* space.c — operations on active-space Hamiltonians: core folding and
- * orbital selection in the orbital basis, and the reference energy. */
+/* space.c — operations on active-space Hamiltonians: freeing, core folding
+ * and orbital selection in the orbital basis, and the reference energy. */
 #include "config.h"
 
 #include "cairn/chem.h"
@@ -7,6 +7,14 @@
 
 #include <stdlib.h>
 #include <string.h>
+
+void chem_space_free(chem_space *s) {
+  if (!s) return;
+  free(s->h1);
+  free(s->h2);
+  free(s->orbital_energies);
+  memset(s, 0, sizeof *s);
+}
 
 /* Fold the doubly occupied `core` orbitals of `full` into the constant and
  * keep the `active` orbitals:
