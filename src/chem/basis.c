@@ -174,6 +174,19 @@ static int read_element(parser *p, int z, const char *sym, diag_span head) {
            t[2].s);
       goto resync;
     }
+    /* each primitive takes a line: a count beyond the lines left is an error,
+     * not an allocation (counted only for counts no real set uses) */
+    if (nprim > 64) {
+      uint32_t left = 0;
+      for (uint32_t i = p->pos; i < p->len; i++) left += p->text[i] == '\n';
+      if (p->pos < p->len && p->text[p->len - 1] != '\n') left++;
+      if ((uint32_t)nprim > left) {
+        perr(p, chem_tok_span(p->file, &t[1]),
+             "the %s shell of `%s` announces %d primitives but only %u line%s follow%s", shname, sym, nprim, left,
+             left == 1 ? "" : "s", left == 1 ? "s" : "");
+        goto resync;
+      }
+    }
     if (l >= 2 && !p->high_l_at_z) {
       p->high_l_at_z = z;
       p->high_l_letter = shell_letters[l];
