@@ -40,7 +40,7 @@ import numpy as np
 import scipy.sparse
 
 sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "ref"))
-from ref_common import excitation_words, product  # noqa: E402
+from ref_common import excitation_words, product, word_masks  # noqa: E402
 
 
 # ---- Pauli words: the Jordan-Wigner algebra of tests/ref/ref_common.py on
@@ -53,13 +53,7 @@ def popcount(v):
 
 def masks(word):
     """(x, z) masks of a ((qubit, letter), ...) word."""
-    x = z = 0
-    for q, l in word:
-        if l in "XY":
-            x |= 1 << q
-        if l in "YZ":
-            z |= 1 << q
-    return x, z
+    return word_masks(word)[:2]
 
 
 def add_into(acc, s, c):

@@ -32,7 +32,7 @@ import numpy as np
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 import gates_sim as gs  # noqa: E402
-from ref_common import dense, parse_word  # noqa: E402
+from ref_common import dense, parse_word, word_masks  # noqa: E402
 
 CAIRN = os.environ.get("CAIRN", "./cairn")
 FAILS = gs.FAILS  # failures are collected by gates_sim.check
@@ -85,13 +85,7 @@ class PauliSumOp:
         idx = np.arange(1 << n)
         self.terms = []
         for c, word in terms:
-            x = z = ny = 0
-            for q, L in word.items():
-                if L in "XY":
-                    x |= 1 << q
-                if L in "YZ":
-                    z |= 1 << q
-                ny += L == "Y"
+            x, z, ny = word_masks(word)
             # <i|P|j> with j = i ^ x: the Z part acts on |j>, then X flips it
             j = idx ^ x
             sign = 1 - 2 * (np.array([bin(v).count("1") for v in (j & z)]) & 1)

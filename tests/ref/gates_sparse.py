@@ -38,7 +38,7 @@ import numpy as np
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 import gates_recipes as gr  # noqa: E402
 import gates_sim as gs  # noqa: E402
-from ref_common import parse_word  # noqa: E402
+from ref_common import parse_word, word_masks  # noqa: E402
 
 SRC = os.environ.get("CAIRN_SRCDIR", ".")
 DENSE_MAX = 12  # gates_examples.py covers these
@@ -131,13 +131,7 @@ def same_up_to_phase(a, b):
 
 
 def masks(word):
-    x = z = ny = 0
-    for q, L in word.items():
-        if L in "XY":
-            x |= 1 << q
-        if L in "YZ":
-            z |= 1 << q
-        ny += L == "Y"
+    x, z, ny = word_masks(word)
     return np.int64(x), np.int64(z), ny
 
 

@@ -51,6 +51,20 @@ def parse_word(s):
     return {int(tok[1:]): tok[0] for tok in s.split()}
 
 
+def word_masks(word):
+    """(x, z, ny) of a word given as {qubit: letter} or ((qubit, letter), ...):
+    X on the x bits, Z on the z bits, Y on both (ny of them), so that the
+    word is i^ny X^x Z^z (Y = iXZ, the Pauli matrices)."""
+    x = z = ny = 0
+    for q, L in (word.items() if isinstance(word, dict) else word):
+        if L in "XY":
+            x |= 1 << q
+        if L in "YZ":
+            z |= 1 << q
+        ny += L == "Y"
+    return x, z, ny
+
+
 # ---- Jordan-Wigner algebra on words as sorted ((qubit, letter), ...) tuples ----
 
 MUL = {("X", "Y"): (1j, "Z"), ("Y", "Z"): (1j, "X"), ("Z", "X"): (1j, "Y"),
