@@ -70,7 +70,7 @@ bench-chem: tests/bench/chem_bench$(EXEEXT)
 CHEM_FUZZ_FILES = $(srcdir)/tests/fuzz/fuzz_inputs.c $(srcdir)/src/chem/fcidump.c $(srcdir)/src/chem/basis.c \
 	$(srcdir)/src/chem/basis_data.c $(srcdir)/src/chem/chem_util.c $(srcdir)/src/chem/element.c \
 	$(srcdir)/src/chem/space.c $(srcdir)/src/util.c $(srcdir)/src/diag.c
-EXTRA_DIST += tests/fuzz/fuzz_inputs.c
+EXTRA_DIST += tests/fuzz/fuzz_inputs.c tests/fuzz/inputs.dict
 CLEANFILES += tests/fuzz/fuzz_inputs
 fuzz: tests/fuzz/fuzz_inputs
 tests/fuzz/fuzz_inputs: $(CHEM_FUZZ_FILES)
