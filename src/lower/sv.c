@@ -152,7 +152,6 @@ static int ycount(uint64_t x, uint64_t z) { return __builtin_popcountll(x & z); 
  * when p < 6 both rows lie in one block. */
 #define BLK 64
 
-uint64_t sv_stream_min = (uint64_t)1 << 22; /* 64 MiB vectors, twice the L3 of the 2-core machine: below it the copy costs (X5 X19 at 20 qubits: 88 GB/s with it, 162 without), at 24 qubits it gains 2x */
 
 static void sign_row(uint64_t z, double *row) {
   for (unsigned l = 0; l < BLK; l++) row[l] = sv_parity(l & z) ? -1.0 : 1.0;
@@ -259,7 +258,7 @@ static inline __attribute__((always_inline)) void pairs_chunk(pair_op op, int fi
  * the speed of the others (24 qubits: X0 Y5 Z9 X23 at 43 % of the copy
  * bandwidth and X6 X23 at 50 %, X0 Y1 Z9 X23 at 120 %).  Here the partner run is read and
  * written in address order through an L1 copy; the arithmetic is the same.
- * In cache the copy costs more than it saves, hence sv_stream_min. */
+ * In cache the copy costs more than it saves, hence SV_STREAM_MIN. */
 #define RUN 256
 static inline __attribute__((always_inline)) void pairs_chunk_run(pair_op op, int fim, const kparams *k,
                                                                   const ktab *t, sv_v2 *restrict a,
@@ -296,7 +295,7 @@ static inline __attribute__((always_inline)) void pairs_chunk_run(pair_op op, in
 /* Every pair of the register, in chunks of blocks; returns the sum of the
  * per-chunk accumulators (in chunk order) as (re, im) of sum conj(a) ... . */
 static double complex pairs_pass(pair_op op, int fim, const kparams *k, sv_v2 *restrict a, sv_v2 *restrict b,
-                                 uint64_t dim, uint64_t x, uint64_t z) {
+                                 uint64_t dim, uint64_t x, uint64_t z, int stream) {
   int p = sv_top_bit(x);
   double row[BLK];
   sign_row(z & (BLK - 1), row);
@@ -317,7 +316,6 @@ static double complex pairs_pass(pair_op op, int fim, const kparams *k, sv_v2 *r
   /* blocks visited: all of them (p < 6) or those with bit p clear */
   uint64_t nvis = p >= 6 ? nblk / 2 : nblk, cb = SV_CHUNK / BLK, nch = (nvis + cb - 1) / cb;
   /* vectors from memory, not from cache: 4 KiB runs (chunk bounds and nvis are multiples of RUN / BLK) */
-  int stream = dim >= sv_stream_min;
   int run = stream && p >= 8 && (x & 0xC0) && cb % (RUN / BLK) == 0 && nvis % (RUN / BLK) == 0;
   parts ps;
   double *part = parts_get(&ps, inner ? nch : 1);
@@ -433,6 +431,10 @@ static void rot_params(uint64_t x, uint64_t z, double theta, kparams *k) {
 }
 
 void sv_rotate(sv_state *s, uint64_t x, uint64_t z, double theta) {
+  sv_rotate_order(s, x, z, theta, s->dim >= SV_STREAM_MIN);
+}
+
+void sv_rotate_order(sv_state *s, uint64_t x, uint64_t z, double theta, int stream) {
   sv_v2 *v = (sv_v2 *)s->a;
   if (x == 0) {
     diag_pass(OP_ROTATE, cos(0.5 * theta), sin(0.5 * theta), NULL, v, s->dim, z);
@@ -440,11 +442,13 @@ void sv_rotate(sv_state *s, uint64_t x, uint64_t z, double theta) {
   }
   kparams k;
   rot_params(x, z, theta, &k);
-  pairs_pass(OP_ROTATE, !(ycount(x, z) & 1), &k, NULL, v, s->dim, x, z);
+  pairs_pass(OP_ROTATE, !(ycount(x, z) & 1), &k, NULL, v, s->dim, x, z, stream);
 }
 
 /* (P a)_i = i^ny sigma_j a_j: swap the pair with the phases. */
-void sv_apply_word(sv_state *s, uint64_t x, uint64_t z) {
+void sv_apply_word(sv_state *s, uint64_t x, uint64_t z) { sv_apply_word_order(s, x, z, s->dim >= SV_STREAM_MIN); }
+
+void sv_apply_word_order(sv_state *s, uint64_t x, uint64_t z, int stream) {
   sv_v2 *v = (sv_v2 *)s->a;
   if (x == 0) {
     diag_pass(OP_WORD, 0, 0, NULL, v, s->dim, z);
@@ -454,28 +458,33 @@ void sv_apply_word(sv_state *s, uint64_t x, uint64_t z) {
   double vr, vi;
   ipow(ny, &vr, &vi);
   kparams k = {{0, 0}, {vr, vr}, {-vi, vi}, (ny & 1) ? -1.0 : 1.0};
-  pairs_pass(OP_WORD, ny & 1, &k, NULL, v, s->dim, x, z);
+  pairs_pass(OP_WORD, ny & 1, &k, NULL, v, s->dim, x, z, stream);
 }
 
 /* <a|P|b> = i^ny sum over pairs of sigma_i (eps conj(a_i) b_j + conj(a_j) b_i)
  * (diagonal words: sum of sigma_i conj(a_i) b_i).  With rot set, both vectors
  * are then rotated by exp(-i theta P/2) in the same pass. */
 static double complex word_inner(sv_v2 *restrict a, uint64_t x, uint64_t z, sv_v2 *restrict b, uint64_t dim, int rot,
-                                 double theta) {
+                                 double theta, int stream) {
   pair_op op = rot ? OP_INNER_ROTATE : OP_INNER;
   if (x == 0) return diag_pass(op, cos(0.5 * theta), sin(0.5 * theta), a, b, dim, z);
   kparams k;
   rot_params(x, z, theta, &k);
-  double complex r = pairs_pass(op, !(ycount(x, z) & 1), &k, a, b, dim, x, z);
+  double complex r = pairs_pass(op, !(ycount(x, z) & 1), &k, a, b, dim, x, z, stream);
   double vr, vi;
   ipow(ycount(x, z), &vr, &vi);
   return r * CMPLX(vr, vi);
 }
 
 double complex sv_word_inner(const sv_state *a, uint64_t x, uint64_t z, const sv_state *b) {
-  return word_inner((sv_v2 *)a->a, x, z, (sv_v2 *)b->a, a->dim, 0, 0.0);
+  return word_inner((sv_v2 *)a->a, x, z, (sv_v2 *)b->a, a->dim, 0, 0.0, a->dim >= SV_STREAM_MIN);
 }
 
 double complex sv_word_inner_rotate2(sv_state *l, sv_state *p, uint64_t x, uint64_t z, double theta) {
-  return word_inner((sv_v2 *)l->a, x, z, (sv_v2 *)p->a, l->dim, 1, theta);
+  return word_inner((sv_v2 *)l->a, x, z, (sv_v2 *)p->a, l->dim, 1, theta, l->dim >= SV_STREAM_MIN);
+}
+
+double complex sv_word_inner_order(sv_state *l, sv_state *p, uint64_t x, uint64_t z, int rot, double theta,
+                                   int stream) {
+  return word_inner((sv_v2 *)l->a, x, z, (sv_v2 *)p->a, l->dim, rot, theta, stream);
 }

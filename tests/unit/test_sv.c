@@ -14,7 +14,7 @@
 #include <string.h>
 #include <cmocka.h>
 
-#include "lower/sv_priv.h" /* sv_stream_min */
+#include "lower/sv_priv.h" /* the access-order entry points */
 
 #include <complex.h>
 #include <math.h>
@@ -93,8 +93,7 @@ static double max_diff(uint64_t dim, const double complex *a, const double compl
  * 1..9 qubits (diagonal words, Y-heavy words and the identity included).
  * Trials 3 and 4 force words with letters on qubit 5, or 6 and 7, and on a
  * qubit above them: the words that take sv.c's partner copies when vectors
- * stream from memory (test_streaming_orders sends these small registers
- * down that path). */
+ * stream from memory (test_streaming_orders compares the two orders). */
 static void test_rotation_matches_dense(void **state) {
   (void)state;
   util_rng r;
@@ -179,14 +178,52 @@ static void test_word_inner(void **state) {
 }
 
 /* The access orders for registers that stream from memory (sv.c) give the
- * same results: both tests above again with every register counted as
- * streaming. */
+ * same rotations, word products and inner products as the default order,
+ * which the two tests above check against dense matrices: on 7 to 10 qubits,
+ * with words forced onto qubit 5 (the partner-block copy) and onto qubits 6
+ * and 7 (the 4 KiB runs) besides random ones. */
 static void test_streaming_orders(void **state) {
-  uint64_t keep = sv_stream_min;
-  sv_stream_min = 0;
-  test_rotation_matches_dense(state);
-  test_word_inner(state);
-  sv_stream_min = keep;
+  (void)state;
+  util_rng r;
+  util_rng_seed(&r, 13);
+  int forced = 0;
+  for (int n = 7; n <= 10; n++)
+    for (int trial = 0; trial < 16; trial++) {
+      char letters[12];
+      random_letters(&r, n, letters);
+      if (trial % 3 == 0) letters[5] = 'X', letters[n - 1] = 'Y';
+      if (trial % 3 == 1 && n >= 9) letters[6] = 'Y', letters[7] = 'X', letters[n - 1] = 'X';
+      uint64_t x, z;
+      word_of_letters(n, letters, &x, &z);
+      forced += (x >> 5 & 1) && n >= 9 && (x >> (n - 1) & 1);
+      sv_state a, b, a1, b1;
+      sv_state_alloc(&a, n);
+      sv_state_alloc(&b, n);
+      sv_state_alloc(&a1, n);
+      sv_state_alloc(&b1, n);
+      random_state(&r, &a);
+      random_state(&r, &b);
+      double theta = 4 * util_rng_uniform(&r) - 2;
+      sv_copy(&a1, &a);
+      sv_rotate_order(&a, x, z, theta, 0);
+      sv_rotate_order(&a1, x, z, theta, 1);
+      assert_true(max_diff(a.dim, a.a, a1.a) == 0); /* the same arithmetic per pair */
+      sv_apply_word_order(&a, x, z, 0);
+      sv_apply_word_order(&a1, x, z, 1);
+      assert_true(max_diff(a.dim, a.a, a1.a) == 0);
+      double complex w0 = sv_word_inner_order(&a, &b, x, z, 0, 0.0, 0), w1 = sv_word_inner_order(&a, &b, x, z, 0, 0.0, 1);
+      assert_true(cabs(w0 - w1) < 1e-13); /* sums in another order */
+      sv_copy(&b1, &b);
+      w0 = sv_word_inner_order(&a, &b, x, z, 1, theta, 0);
+      w1 = sv_word_inner_order(&a1, &b1, x, z, 1, theta, 1);
+      assert_true(cabs(w0 - w1) < 1e-13);
+      assert_true(max_diff(a.dim, a.a, a1.a) == 0 && max_diff(b.dim, b.a, b1.a) == 0);
+      sv_state_free(&a);
+      sv_state_free(&b);
+      sv_state_free(&a1);
+      sv_state_free(&b1);
+    }
+  assert_true(forced >= 8); /* the copy paths were taken */
 }
 
 /* op psi and <psi|op|psi> for random sums with complex coefficients (not
