@@ -65,8 +65,11 @@ static void header2(emit_ctx *e) {
 
 static void mark2(emit_ctx *e, const gate *g, long run) { mark(e, g, run, "  "); }
 
-static void gate2(emit_ctx *e, const gate *g) {
-  emit_mem(e, "  ", 2);
+/* One gate statement of either version: `op(angle) q[a]` or `cx q[a]<sep>q[b]`,
+ * after `indent` (inside OpenQASM 2.0's gate body) and ending the line. */
+static inline void qasm_gate(emit_ctx *e, const gate *g, const char *indent, size_t nindent, const char *sep,
+                             size_t nsep) {
+  emit_mem(e, indent, nindent);
   emit_op(e, g->op);
   if (gate_is_rotation(g->op)) {
     emit_ch(e, '(');
@@ -76,11 +79,13 @@ static void gate2(emit_ctx *e, const gate *g) {
   emit_ch(e, ' ');
   emit_qubit(e, g->q0);
   if (g->op == GATE_CX) {
-    emit_ch(e, ',');
+    emit_mem(e, sep, nsep);
     emit_qubit(e, g->q1);
   }
   emit_mem(e, ";\n", 2);
 }
+
+static void gate2(emit_ctx *e, const gate *g) { qasm_gate(e, g, "  ", 2, ",", 1); }
 
 static void footer2(emit_ctx *e) {
   emit_str(e, "}\n");
@@ -139,21 +144,7 @@ static void header3(emit_ctx *e) {
 
 static void mark3(emit_ctx *e, const gate *g, long run) { mark(e, g, run, ""); }
 
-static void gate3(emit_ctx *e, const gate *g) {
-  emit_op(e, g->op);
-  if (gate_is_rotation(g->op)) {
-    emit_ch(e, '(');
-    emit_angle(e, g, "theta_");
-    emit_ch(e, ')');
-  }
-  emit_ch(e, ' ');
-  emit_qubit(e, g->q0);
-  if (g->op == GATE_CX) {
-    emit_mem(e, ", ", 2);
-    emit_qubit(e, g->q1);
-  }
-  emit_mem(e, ";\n", 2);
-}
+static void gate3(emit_ctx *e, const gate *g) { qasm_gate(e, g, "", 0, ", ", 2); }
 
 static void footer3(emit_ctx *e) { (void)e; }
 
