@@ -356,13 +356,20 @@ static void parser_init(front_parser *p, diag_ctx *d, int32_t file) {
   p->last_error_line = -1;
 }
 
+/* A parser over the registered text `file` with its reentrant scanner
+ * (recipe_lxlex_destroy(p->scanner) when done). */
+static void parser_open(front_parser *p, diag_ctx *d, int32_t file) {
+  parser_init(p, d, file);
+  yyscan_t scanner;
+  recipe_lxlex_init_extra(p, &scanner);
+  p->scanner = scanner;
+  recipe_lx_scan_bytes(p->text, (int)p->len, scanner);
+}
+
 int front_tokens(diag_ctx *d, int32_t file, front_tok *out, int max) {
   front_parser p;
-  parser_init(&p, d, file);
-  yyscan_t scanner;
-  recipe_lxlex_init_extra(&p, &scanner);
-  p.scanner = scanner;
-  recipe_lx_scan_bytes(p.text, (int)p.len, scanner);
+  parser_open(&p, d, file);
+  yyscan_t scanner = p.scanner;
   int n = 0;
   for (;;) {
     RECIPE_YYSTYPE v;
@@ -380,12 +387,8 @@ int front_tokens(diag_ctx *d, int32_t file, front_tok *out, int max) {
 
 ast_file *front_parse(diag_ctx *d, int32_t file) {
   front_parser p;
-  parser_init(&p, d, file);
-  yyscan_t scanner;
-  recipe_lxlex_init_extra(&p, &scanner);
-  p.scanner = scanner;
-  recipe_lx_scan_bytes(p.text, (int)p.len, scanner);
+  parser_open(&p, d, file);
   recipe_yyparse(&p);
-  recipe_lxlex_destroy(scanner);
+  recipe_lxlex_destroy(p.scanner);
   return p.out;
 }
