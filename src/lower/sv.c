@@ -157,6 +157,20 @@ static void sign_row(uint64_t z, double *row) {
   for (unsigned l = 0; l < BLK; l++) row[l] = sv_parity(l & z) ? -1.0 : 1.0;
 }
 
+/* A chunk's inner-product accumulators, lanes (re re, im im) and (re im, im re),
+ * as the (re, im) of sum conj(a) b, stored at its place among the parts. */
+static inline void acc_store(double *part, uint64_t ch, const sv_v2 *acc) {
+  part[2 * ch] = acc[0][0] + acc[0][1];
+  part[2 * ch + 1] = acc[1][0] - acc[1][1];
+}
+
+/* The parts summed in chunk order, then freed. */
+static double complex parts_sum_free(parts *ps, const double *part, uint64_t nch) {
+  double complex r = sum_parts(part, nch);
+  parts_free(ps);
+  return r;
+}
+
 /* The operation on one pair, given the sign of row i. */
 typedef enum pair_op { OP_ROTATE, OP_WORD, OP_INNER, OP_INNER_ROTATE } pair_op;
 
@@ -338,14 +352,9 @@ static double complex pairs_pass(pair_op op, int fim, const kparams *k, sv_v2 *r
       case OP_INNER_ROTATE: PAIRS_CHUNK(OP_INNER_ROTATE, a, b, q0, q1, p, x, z, lows, stream, acc); break;
       }
     }
-    if (inner) {
-      part[2 * ch] = acc[0][0] + acc[0][1];
-      part[2 * ch + 1] = acc[1][0] - acc[1][1];
-    }
+    if (inner) acc_store(part, ch, acc);
   }
-  double complex r = inner ? sum_parts(part, nch) : 0;
-  parts_free(&ps);
-  return r;
+  return inner ? parts_sum_free(&ps, part, nch) : (parts_free(&ps), 0);
 }
 
 /* Per-call tables of a diagonal pass, for the two block parities: sigma and
@@ -405,14 +414,9 @@ static double complex diag_pass(pair_op op, double c, double s, sv_v2 *restrict 
     case OP_INNER: diag_chunk(OP_INNER, C, &t, a, b, q0, q1, bl, z, acc); break;
     case OP_INNER_ROTATE: diag_chunk(OP_INNER_ROTATE, C, &t, a, b, q0, q1, bl, z, acc); break;
     }
-    if (inner) {
-      part[2 * ch] = acc[0][0] + acc[0][1];
-      part[2 * ch + 1] = acc[1][0] - acc[1][1];
-    }
+    if (inner) acc_store(part, ch, acc);
   }
-  double complex r = inner ? sum_parts(part, nch) : 0;
-  parts_free(&ps);
-  return r;
+  return inner ? parts_sum_free(&ps, part, nch) : (parts_free(&ps), 0);
 }
 
 /* exp(-i theta P/2) = c - i s P with (P a)_i = i^ny sigma_j a_j, j = i ^ x,
