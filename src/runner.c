@@ -301,12 +301,17 @@ int run_point(const ir_recipe *r, int k, diag_ctx *d, const run_options *o, run_
   ans_circuit c;
   memset(&c, 0, sizeof c);
   int rc = 0;
+  double *chosen = NULL; /* grow: the gradient each step chose its generator at */
+  int nchosen = 0;
   if (plan.grow) {
     /* ADAPT-style growth picks the generators (pool.h); the grown program is
      * then optimized from its optimum with the recipe's starts. */
     ans_grow_result gr;
     rc = ans_grow(&plan, r, &objective, &gr, err, sizeof err);
     if (rc == 0) {
+      nchosen = gr.nsteps;
+      chosen = xmalloc((size_t)(nchosen ? nchosen : 1) * sizeof *chosen);
+      for (int i = 0; i < nchosen; i++) chosen[i] = gr.step[i].gradient;
       ans_plan_circuit(&plan, r, &c);
       job.warm = gr.theta;
       rc = optimize_program(&job, &c, err, sizeof err);
@@ -326,6 +331,7 @@ int run_point(const ir_recipe *r, int k, diag_ctx *d, const run_options *o, run_
     diag_report(d, DIAG_ERROR, r->optimize.span, "%s", err);
     out->failure = failure_text("optimization", d, err);
     if (job.e) sim_engine_free(job.e);
+    free(chosen);
     ans_circuit_free(&c);
     pauli_sum_free(&objective);
     ans_plan_free(&plan);
@@ -405,6 +411,7 @@ int run_point(const ir_recipe *r, int k, diag_ctx *d, const run_options *o, run_
     rg->kind = xstrdup(ans_kind_name(c.gens[g].kind));
     rg->text = xstrdup(c.gens[g].text);
     rg->gradient = plan.pool.gen[pi].gradient;
+    if (g < nchosen) rg->has_chosen = 1, rg->chosen = chosen[g]; /* grow adds generator g at step g */
     rg->theta = best->theta[p];
     rg->cnot = (int)gate_plain_cx(&c, g);
     rg->line = c.gens[g].line;
@@ -444,6 +451,7 @@ int run_point(const ir_recipe *r, int k, diag_ctx *d, const run_options *o, run_
 
   sim_opt_result_free(&job.res);
   sim_engine_free(job.e);
+  free(chosen);
   ans_circuit_free(&c);
   pauli_sum_free(&objective);
   ans_plan_free(&plan);

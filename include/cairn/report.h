@@ -24,6 +24,8 @@ typedef struct rep_generator {
   char *kind;         /* "double", "entangler", ... (ans_kind_name) */
   char *text;         /* "X0 Y1 X4 X5", "0 1 -> 4 5" */
   double gradient;    /* at the reference, before optimization */
+  int has_chosen;     /* grown by `grow` (ADAPT-style): */
+  double chosen;      /* its gradient at the state where growth chose it */
   double theta;       /* optimized amplitude */
   int cnot;           /* CNOTs of its plain circuit */
   int line;           /* recipe line of its pool rule (0: none) */

@@ -323,7 +323,9 @@ static const help_entry topics[] = {
      "  state, add the pool generator with the largest |gradient|, optimize all\n"
      "  parameters again, and stop when the largest |gradient| is below T\n"
      "  (hartree) or the ansatz has N generators (ADAPT-VQE, Grimsley et al.\n"
-     "  2019).  Takes the place of `choose`.\n",
+     "  2019).  Takes the place of `choose`.  A generator may be chosen again.\n"
+     "  The report gives, beside each generator's gradient at the reference,\n"
+     "  the gradient it was chosen at (`chosen at`; chosen_gradient in JSON).\n",
      "grow to 30 until 1e-3", "choose qubit pool"},
 
     {"order", "order as written by gradient rank", "the order in which the chosen generators act",

@@ -58,6 +58,7 @@ static cJSON *point(const rep_run *r, const rep_point *p, unsigned flags) {
     cJSON_AddStringToObject(j, "kind", x->kind ? x->kind : "");
     cJSON_AddStringToObject(j, "text", x->text ? x->text : "");
     num(j, "gradient", 1, x->gradient);
+    if (x->has_chosen) num(j, "chosen_gradient", 1, x->chosen);
     num(j, "theta", 1, x->theta);
     cJSON_AddNumberToObject(j, "cnot", x->cnot);
     cJSON_AddItemToArray(gens, j);

@@ -156,6 +156,7 @@ static void read_point(reader *rd, const cJSON *j, const char *w, const char *pn
       p->gens[g].kind = opt_str(rd, x, "kind", sub);
       p->gens[g].text = opt_str(rd, x, "text", sub);
       p->gens[g].gradient = req_num(rd, x, "gradient", sub);
+      p->gens[g].chosen = opt_num(rd, x, "chosen_gradient", sub, &p->gens[g].has_chosen);
       p->gens[g].theta = req_num(rd, x, "theta", sub);
       p->gens[g].cnot = (int)req_count(rd, x, "cnot", sub);
     }

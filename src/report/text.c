@@ -128,14 +128,22 @@ static void block_generators(FILE *f, const rep_point *p) {
     if (k > wk) wk = k;
     if (t > wt) wt = t;
   }
+  int grown = 0; /* `grow` runs: the gradient each generator was chosen at, beside the reference's */
+  for (int g = 0; g < p->ngens; g++) grown |= p->gens[g].has_chosen;
   fprintf(f, "  generators (%d, in the order they act)\n", p->ngens);
-  fprintf(f, "    %3s  %-*s  %-*s  %11s  %14s  %5s\n", "#", wk, "kind", wt, "generator", "gradient", "theta",
-          "CNOT");
+  fprintf(f, "    %3s  %-*s  %-*s  %11s", "#", wk, "kind", wt, "generator", "gradient");
+  if (grown) fprintf(f, "  %11s", "chosen at");
+  fprintf(f, "  %14s  %5s\n", "theta", "CNOT");
   for (int g = 0; g < p->ngens; g++) {
     const rep_generator *x = &p->gens[g];
-    fprintf(f, "    %3d  %-*s  %-*s  %11.3e  %14.8f  %5d\n", g + 1, wk, x->kind ? x->kind : "", wt,
-            x->text ? x->text : "", x->gradient, x->theta, x->cnot);
+    fprintf(f, "    %3d  %-*s  %-*s  %11.3e", g + 1, wk, x->kind ? x->kind : "", wt, x->text ? x->text : "",
+            x->gradient);
+    if (grown && x->has_chosen) fprintf(f, "  %11.3e", x->chosen);
+    else if (grown) fprintf(f, "  %11s", "");
+    fprintf(f, "  %14.8f  %5d\n", x->theta, x->cnot);
   }
+  if (grown)
+    fprintf(f, "    (gradient: at the reference; chosen at: at the state where `grow` added the generator)\n");
 }
 
 static void block_checks(FILE *f, const rep_point *p) {

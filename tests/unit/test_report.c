@@ -55,7 +55,8 @@ static void make_scan(rep_run *r, int n, int drop) {
     p->exact_s2 = 0;
     p->ngens = 1;
     p->gens = xcalloc(1, sizeof *p->gens);
-    p->gens[0] = (rep_generator){xstrdup("double"), xstrdup("0 1 -> 2 3"), -0.18, 0.11, 13, 7};
+    p->gens[0] = (rep_generator){
+        .kind = xstrdup("double"), .text = xstrdup("0 1 -> 2 3"), .gradient = -0.18, .theta = 0.11, .cnot = 13, .line = 7};
     p->sym = (rep_symmetry){1, 2, 0, 1e-9};
     p->has_gates = 1, p->cnot = 13, p->single = 20, p->depth = 25;
     p->has_optimizer = 1, p->method = xstrdup("lbfgs"), p->iterations = 12, p->converged = 1;
@@ -276,6 +277,7 @@ static void test_json_round_trip(void **state) {
   assert_int_equal(q.points[0].nparams, 2);
   assert_true(q.points[0].params[0] == 0.25);
   assert_null(q.points[1].params);
+  assert_int_equal(q.points[0].gens[0].has_chosen, 0); /* only grown generators carry chosen_gradient */
   j = rep_json(&q, 0);
   char *b = cJSON_Print(j);
   cJSON_Delete(j);
@@ -487,6 +489,29 @@ static void test_text(void **state) {
   t = text_of(&r, REP_NO_TIME | REP_TEXT_POINTS);
   assert_int_equal(count(t, "\npoint "), 3);
   free(t);
+  rep_run_free(&r);
+
+  /* a grown generator: the gradient it was chosen at gets its own column, in
+   * the text and in the JSON (chosen_gradient), and reads back */
+  make_scan(&r, 1, 0);
+  free(r.param_name);
+  r.param_name = NULL;
+  t = text_of(&r, REP_NO_TIME);
+  assert_null(strstr(t, "chosen at"));
+  free(t);
+  r.points[0].gens[0].has_chosen = 1, r.points[0].gens[0].chosen = 2.5e-3;
+  t = text_of(&r, REP_NO_TIME);
+  assert_non_null(strstr(t, "chosen at"));
+  assert_non_null(strstr(t, "-1.800e-01    2.500e-03"));
+  free(t);
+  cJSON *j = rep_json(&r, 0);
+  rep_run q;
+  char err[200];
+  assert_int_equal(rep_read_json(j, &q, err, sizeof err), 0);
+  cJSON_Delete(j);
+  assert_int_equal(q.points[0].gens[0].has_chosen, 1);
+  assert_true(q.points[0].gens[0].chosen == 2.5e-3);
+  rep_run_free(&q);
   rep_run_free(&r);
 }
 
