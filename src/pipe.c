@@ -39,7 +39,10 @@ int pipe_point_from_space(const ir_recipe *r, const chem_space *cs, diag_ctx *d,
   out->nbeta = cs ? cs->nbeta : r->orbitals.nbeta;
   int nmodes = 2 * out->norb;
   int nw = pauli_nwords(nmodes);
-  if (operators_fit(r, nmodes, d) != 0) return -1;
+  if (operators_fit(r, nmodes, d) != 0) {
+    pipe_point_free(out); /* as on the other failures: the space pipe_point_build made goes too */
+    return -1;
+  }
   out->enc = qubit_encoder_new(r->encoding, nmodes);
   pauli_sum_init(&out->ham_full, nmodes);
   if (cs) {
