@@ -327,17 +327,11 @@ int run_point(const ir_recipe *r, int k, diag_ctx *d, const run_options *o, run_
     rc = optimize_program(&job, &c, err, sizeof err);
   }
   if (o->progress) fprintf(stderr, "\r%*s\r", 78, "");
+  int ret = -1;
   if (rc != 0) {
     diag_report(d, DIAG_ERROR, r->optimize.span, "%s", err);
     out->failure = failure_text("optimization", d, err);
-    if (job.e) sim_engine_free(job.e);
-    free(chosen);
-    ans_circuit_free(&c);
-    pauli_sum_free(&objective);
-    ans_plan_free(&plan);
-    pipe_point_free(&pp);
-    out->seconds = util_now() - t0;
-    return -1;
+    goto done;
   }
 
   const sim_opt_result *res = &job.res;
@@ -450,14 +444,16 @@ int run_point(const ir_recipe *r, int k, diag_ctx *d, const run_options *o, run_
   carry->signature = program_signature(&c);
 
   sim_opt_result_free(&job.res);
-  sim_engine_free(job.e);
+  ret = failed ? 1 : 0;
+done: /* one exit: what the point built, freed in reverse */
+  if (job.e) sim_engine_free(job.e);
   free(chosen);
   ans_circuit_free(&c);
   pauli_sum_free(&objective);
   ans_plan_free(&plan);
   pipe_point_free(&pp);
   out->seconds = util_now() - t0;
-  return failed ? 1 : 0;
+  return ret;
 }
 
 static char *recipe_name(const char *path) {

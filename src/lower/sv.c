@@ -329,8 +329,10 @@ static double complex pairs_pass(pair_op op, int fim, const kparams *k, sv_v2 *r
   uint64_t nblk = dim / BLK;
   /* blocks visited: all of them (p < 6) or those with bit p clear */
   uint64_t nvis = p >= 6 ? nblk / 2 : nblk, cb = SV_CHUNK / BLK, nch = (nvis + cb - 1) / cb;
-  /* vectors from memory, not from cache: 4 KiB runs (chunk bounds and nvis are multiples of RUN / BLK) */
-  int run = stream && p >= 8 && (x & 0xC0) && cb % (RUN / BLK) == 0 && nvis % (RUN / BLK) == 0;
+  /* vectors from memory, not from cache: 4 KiB runs.  Their block steps fit
+   * the chunks (static assert) and nvis = 2^(n-7) >= RUN / BLK when p >= 8. */
+  _Static_assert(SV_CHUNK / BLK % (RUN / BLK) == 0, "a chunk holds whole 4 KiB runs");
+  int run = stream && p >= 8 && (x & 0xC0);
   parts ps;
   double *part = parts_get(&ps, inner ? nch : 1);
 #pragma omp parallel for schedule(static) if (dim >= 2 * SV_PAR_MIN)
